@@ -1,0 +1,2 @@
+/** voteworth: reviewer credibility from helpfulness votes. */
+package org.voteworth;

@@ -1,0 +1,29 @@
+package org.voteworth.source;
+
+import java.nio.file.Path;
+
+/**
+ * One input file of a dump and the category its rows belong to when the dump has no category
+ * column (taken from the file name, so part files of one category stay together).
+ *
+ * @param path the file
+ * @param category category derived from the file name; the category column, when mapped, wins
+ * @param compression how the bytes are stored
+ * @param sizeBytes size on disk
+ */
+public record DumpFile(Path path, String category, Compression compression, long sizeBytes) {
+    /** How a dump file is stored on disk, judged by its name. */
+    public enum Compression {
+        NONE, GZIP;
+
+        public static Compression of(Path p) {
+            String n = p.getFileName().toString().toLowerCase(java.util.Locale.ROOT);
+            return n.endsWith(".gz") ? GZIP : NONE;
+        }
+    }
+
+    @Override
+    public String toString() {
+        return path.toString();
+    }
+}
