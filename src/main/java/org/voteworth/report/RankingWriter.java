@@ -1,10 +1,7 @@
 package org.voteworth.report;
 
-import com.fasterxml.jackson.core.JsonFactory;
 import com.fasterxml.jackson.core.JsonGenerator;
 import java.io.IOException;
-import java.io.StringWriter;
-import java.io.UncheckedIOException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -91,35 +88,22 @@ public final class RankingWriter {
     }
 
     private static String json(RankingReport r) {
-        StringWriter out = new StringWriter();
-        try (JsonGenerator j = new JsonFactory().createGenerator(out).useDefaultPrettyPrinter()) {
-            j.writeStartObject();
-            j.writeStringField("title", r.title());
-            j.writeStringField("rule", r.ranking().rule().name());
-            j.writeStringField("rule_label", r.ranking().rule().label());
-            j.writeStringField("rule_description", r.ranking().rule().describe());
-            j.writeStringField("entry_bar", r.ranking().bar().describe());
-            j.writeNumberField("ranked", r.ranking().size());
-            j.writeObjectFieldStart("parameters");
-            for (Map.Entry<String, String> p : r.parameters().entrySet()) {
-                j.writeStringField(p.getKey(), p.getValue());
-            }
-            j.writeEndObject();
-            j.writeArrayFieldStart("cautions");
-            for (String c : Cautions.TEXT) {
-                j.writeString(c);
-            }
-            j.writeEndArray();
-            j.writeArrayFieldStart("entries");
-            for (Explanation e : r.entries()) {
-                entry(j, e);
-            }
-            j.writeEndArray();
-            j.writeEndObject();
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
-        return out + "\n";
+        return Json.object(f -> f
+                .field("title", r.title())
+                .field("rule", r.ranking().rule().name())
+                .field("rule_label", r.ranking().rule().label())
+                .field("rule_description", r.ranking().rule().describe())
+                .field("entry_bar", r.ranking().bar().describe())
+                .field("ranked", r.ranking().size())
+                .object("parameters", p -> r.parameters().forEach(p::field))
+                .strings("cautions", Cautions.TEXT)
+                .stream(g -> {
+                    g.writeArrayFieldStart("entries");
+                    for (Explanation e : r.entries()) {
+                        entry(g, e);
+                    }
+                    g.writeEndArray();
+                }));
     }
 
     static void entry(JsonGenerator j, Explanation e) throws IOException {
