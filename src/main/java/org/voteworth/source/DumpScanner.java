@@ -76,6 +76,7 @@ public final class DumpScanner {
      * @param firstLine the 1-based line number of the range's first line
      * @param startsWithHeader whether the range's first line is the header; if not, the header
      *     is read from the start of {@code file}
+     * @throws DumpFormatException naming the file, as for a whole-file scan; {@code in} is not closed
      */
     public FileReport scan(DumpFile file, InputStream in, long firstLine, boolean startsWithHeader,
                            ReviewSink sink, RejectSink rejects) throws IOException {

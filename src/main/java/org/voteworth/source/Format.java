@@ -23,9 +23,4 @@ public enum Format {
     public byte delimiter() {
         return delimiter;
     }
-
-    /** What the user passes to choose this format, for messages. */
-    String option() {
-        return this == CSV ? "--csv" : "the default tab-separated format (no --csv)";
-    }
 }

@@ -67,8 +67,8 @@ public record ScanSummary(List<FileReport> files) {
         }
         b.append(String.format(Locale.ROOT, fmt, "total", rowsRead(), accepted(), rejected(), reasons(rejectsByReason())));
         if (reconciles()) {
-            b.append(String.format(Locale.ROOT, "read = accepted + rejected: %,d = %,d + %,d, holds for all %d file%s%n",
-                    rowsRead(), accepted(), rejected(), files.size(), files.size() == 1 ? "" : "s"));
+            b.append(String.format(Locale.ROOT, "read = accepted + rejected: %,d = %,d + %,d, holds for %s%n",
+                    rowsRead(), accepted(), rejected(), files.size() == 1 ? "the file" : "each of the " + files.size() + " files"));
         } else {
             b.append("read = accepted + rejected does NOT hold for:");
             for (FileReport f : files) {
