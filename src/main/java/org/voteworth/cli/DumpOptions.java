@@ -1,0 +1,45 @@
+package org.voteworth.cli;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/** How to read a dump: the inputs and the options every command that reads one shares. */
+final class DumpOptions {
+    @Parameters(arity = "1..*", paramLabel = "INPUT",
+            description = "Dump files, folders (searched recursively) or globs; plain or .gz. "
+                    + "Commands that rank also take a reviewer table (reviewers.csv) written by 'tally'.")
+    List<String> inputs = new ArrayList<>();
+
+    @Option(names = "--map", paramLabel = "FIELD=HEADER[,...]",
+            description = "Map fields to header names, e.g. --map reviewer=customer,helpful=up_votes. "
+                    + "Fields: reviewer, review, item, category, stars, helpful, total, verified, incentivised, date.")
+    String map;
+
+    @Option(names = "--map-file", paramLabel = "FILE", description = "A file of field=header lines (# comments).")
+    Path mapFile;
+
+    @Option(names = "--csv", description = "Read comma-separated files with RFC 4180 quoting instead of TSV.")
+    boolean csv;
+
+    @Option(names = "--category-pattern", paramLabel = "REGEX",
+            description = "Regex with one group taking the category from the file name, when there is no category column "
+                    + "(default: the name without extensions and part suffix, e.g. garden.part-02.tsv.gz -> garden).")
+    String categoryPattern;
+
+    @Option(names = "--max-reject-rate", defaultValue = "0.05", paramLabel = "SHARE",
+            description = "Stop when more than this share of a file's rows is rejected (default: ${DEFAULT-VALUE}).")
+    double maxRejectRate;
+
+    @Option(names = "--rejects", paramLabel = "FILE",
+            description = "Where to write rejected rows with file, line, field and reason (default: rejects.tsv in --out, "
+                    + "or beside the first input's folder when there is no --out).")
+    Path rejects;
+
+    Optional<Path> rejectsFile() {
+        return Optional.ofNullable(rejects);
+    }
+}

@@ -1,0 +1,118 @@
+package org.voteworth.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import org.voteworth.report.Grid;
+import org.voteworth.report.Json;
+import org.voteworth.report.OutputFormat;
+import org.voteworth.source.FileReport;
+import org.voteworth.tally.ReviewerTableFile;
+import org.voteworth.tally.TallyUnit;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/** {@code voteworth tally}: a dump in, the reviewer table, the rejects and the reconciliation out. */
+@Command(name = "tally", mixinStandardHelpOptions = true,
+        description = {"Streams a review dump and writes per-reviewer vote tallies across all categories.",
+                "Writes reviewers.csv (one row per reviewer), rejects.tsv (every rejected row with file, line, field "
+                        + "and reason) and reconciliation.txt to --out, and prints the reconciliation "
+                        + "read = accepted + rejected per file."})
+final class TallyCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    @Mixin
+    DumpOptions dump;
+
+    @Option(names = "--out", defaultValue = "voteworth-out", paramLabel = "DIR",
+            description = "Output folder (default: ${DEFAULT-VALUE}).")
+    Path out;
+
+    @Option(names = "--unit", defaultValue = "reviewer", paramLabel = "reviewer|review",
+            description = "Tally per reviewer (default) or per review.")
+    String unit;
+
+    @Option(names = "--format", defaultValue = "table", paramLabel = "table|md|csv|json",
+            description = "Format of the summary on stdout (default: ${DEFAULT-VALUE}).")
+    String format;
+
+    @Option(names = "--quiet", description = "No progress on stderr.")
+    boolean quiet;
+
+    @Override
+    public Integer call() throws IOException {
+        PrintWriter outw = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        OutputFormat f = OutputFormat.parse(format);
+        Files.createDirectories(out);
+        Path rejects = dump.rejectsFile().orElse(out.resolve("rejects.tsv"));
+        TallyRun.Result r = TallyRun.run(dump, unit(unit), rejects, quiet, err);
+        Path table = out.resolve(r.table().unit() == TallyUnit.REVIEW ? "reviews.csv" : "reviewers.csv");
+        ReviewerTableFile.write(r.table(), table);
+        Files.writeString(out.resolve("reconciliation.txt"), r.summary().describe());
+        outw.print(summary(r, table, f));
+        outw.flush();
+        return r.summary().reconciles() ? 0 : 1;
+    }
+
+    static TallyUnit unit(String s) {
+        return switch (s.toLowerCase(Locale.ROOT)) {
+            case "reviewer" -> TallyUnit.REVIEWER;
+            case "review" -> TallyUnit.REVIEW;
+            default -> throw new IllegalArgumentException("--unit takes reviewer or review, not '" + s + "'");
+        };
+    }
+
+    static String summary(TallyRun.Result r, Path table, OutputFormat f) {
+        Grid g = new Grid(List.of("file", "read>", "accepted>", "rejected>", "reject_rate>"));
+        for (FileReport fr : r.summary().files()) {
+            g.add(List.of(fr.file().toString(), Long.toString(fr.rowsRead()), Long.toString(fr.accepted()),
+                    Long.toString(fr.rejected()), String.format(Locale.ROOT, "%.4f", fr.rejectRate())));
+        }
+        g.add(List.of("total", Long.toString(r.summary().rowsRead()), Long.toString(r.summary().accepted()),
+                Long.toString(r.summary().rejected()), String.format(Locale.ROOT, "%.4f",
+                        r.summary().rowsRead() == 0 ? 0.0 : (double) r.summary().rejected() / r.summary().rowsRead())));
+        String totals = String.format(Locale.ROOT, "%,d %s from %,d rows in %.2f s (%s); %,d rejected, reasons %s",
+                r.table().size(), r.table().unit() == TallyUnit.REVIEW ? "reviews" : "reviewers", r.summary().accepted(),
+                r.seconds(), r.throughput(), r.summary().rejected(), r.summary().rejectsByReason());
+        String check = r.summary().reconciles()
+                ? String.format(Locale.ROOT, "read = accepted + rejected holds: %,d = %,d + %,d", r.summary().rowsRead(),
+                        r.summary().accepted(), r.summary().rejected())
+                : "read = accepted + rejected does NOT hold: see reconciliation.txt";
+        return switch (f) {
+            case TABLE -> r.summary().describe() + "\n" + totals + "\nreviewer table: " + table + "\nrejects: "
+                    + r.rejectsFile() + "\n";
+            case MD -> "# Tally\n\n" + g.toMarkdown() + "\n" + totals + "\n\n" + check + "\n\n- reviewer table: `" + table
+                    + "`\n- rejects: `" + r.rejectsFile() + "`\n";
+            case CSV -> g.toCsv();
+            case JSON -> Json.object(w -> {
+                w.field("reviewers", r.table().size());
+                w.field("rows_read", r.summary().rowsRead());
+                w.field("accepted", r.summary().accepted());
+                w.field("rejected", r.summary().rejected());
+                w.field("reconciles", r.summary().reconciles());
+                w.field("seconds", r.seconds());
+                w.field("bytes", r.bytes());
+                w.field("reviewer_table", table.toString());
+                w.field("rejects_file", r.rejectsFile().toString());
+                w.map("rejects_by_reason", r.summary().rejectsByReason());
+                w.array("files", r.summary().files(), (fw, fr) -> {
+                    fw.field("file", fr.file().toString());
+                    fw.field("category", fr.file().category());
+                    fw.field("read", fr.rowsRead());
+                    fw.field("accepted", fr.accepted());
+                    fw.field("rejected", fr.rejected());
+                    fw.map("rejects_by_reason", fr.rejectsByReason());
+                });
+            });
+        };
+    }
+}
