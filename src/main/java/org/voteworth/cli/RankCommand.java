@@ -9,6 +9,8 @@ import java.util.concurrent.Callable;
 import org.voteworth.report.OutputFormat;
 import org.voteworth.report.RankingReport;
 import org.voteworth.report.RankingWriter;
+import org.voteworth.report.UncertainRankingWriter;
+import org.voteworth.analysis.RankUncertainty;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
@@ -52,6 +54,17 @@ final class RankCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "No progress or reconciliation on stderr.")
     boolean quiet;
 
+    @Option(names = "--uncertainty", description = "Add P(in top k), its Monte Carlo error and the 5 %%-95 %% rank interval "
+            + "to every format (seeded Monte Carlo; see --draws, --seed, --uncertainty-k).")
+    boolean withUncertainty;
+
+    @Option(names = "--uncertainty-k", defaultValue = "0", paramLabel = "K",
+            description = "The k of P(in top k) (default: --top).")
+    int uncertaintyK;
+
+    @Mixin
+    UncertaintyOptions uncertainty;
+
     @Override
     public Integer call() throws IOException {
         if (top < 1) {
@@ -63,10 +76,13 @@ final class RankCommand implements Callable<Integer> {
         if (out != null) {
             Files.createDirectories(out);
         }
-        TallyRun.Result t = TallyRun.run(dump, TallyCommand.unit(unit), rejects, quiet, err);
+        TallyRun.Result t = AnalysisInput.read(dump, scoring, TallyCommand.unit(unit), rejects, quiet, err);
         RankRun run = RankRun.of(t.table(), scoring);
         RankingReport report = run.report(run.primary, top, privacy.ids(), Map.of("input", String.join(" ", dump.inputs)));
-        String text = RankingWriter.write(report, f, explain);
+        String text = withUncertainty
+                ? UncertainRankingWriter.write(report, RankUncertainty.of(run.primary,
+                        uncertainty.settings(uncertaintyK > 0 ? uncertaintyK : top)), f, explain)
+                : RankingWriter.write(report, f, explain);
         if (out == null) {
             spec.commandLine().getOut().print(text);
             spec.commandLine().getOut().flush();

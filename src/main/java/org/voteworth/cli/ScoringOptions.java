@@ -45,6 +45,11 @@ final class ScoringOptions {
             description = "Flag a reviewer when one review holds more than this share of the votes (default: ${DEFAULT-VALUE}).")
     double concentrationLimit;
 
+    @Option(names = "--cap-votes", defaultValue = "0", paramLabel = "N",
+            description = "Count at most N votes per review, its helpful votes scaled in proportion "
+                    + "(round half up), so one viral review cannot carry a reviewer; 0 = no cap (default: ${DEFAULT-VALUE}).")
+    long capVotes;
+
     EntryBar entryBar() {
         return switch (barOn.toLowerCase(Locale.ROOT)) {
             case "helpful" -> EntryBar.helpful(bar);

@@ -1,0 +1,24 @@
+package org.voteworth.cli;
+
+import picocli.CommandLine.Option;
+import org.voteworth.analysis.RankUncertainty;
+
+/** The Monte Carlo options of the commands that say how sure a rank is. */
+final class UncertaintyOptions {
+    @Option(names = "--draws", defaultValue = "2000", paramLabel = "N",
+            description = "Monte Carlo draws for P(in top k) and rank intervals (default: ${DEFAULT-VALUE}).")
+    int draws;
+
+    @Option(names = "--seed", defaultValue = "20240611", paramLabel = "SEED",
+            description = "Random seed: the same seed gives the same numbers whatever the thread count (default: ${DEFAULT-VALUE}).")
+    long seed;
+
+    @Option(names = "--threads", defaultValue = "0", paramLabel = "N",
+            description = "Worker threads for the draws; 0 = all processors (default: ${DEFAULT-VALUE}).")
+    int threads;
+
+    RankUncertainty.Settings settings(int k) {
+        int t = threads > 0 ? threads : Runtime.getRuntime().availableProcessors();
+        return new RankUncertainty.Settings(k, draws, seed, t, 0.05, 0.95);
+    }
+}
