@@ -10,7 +10,7 @@ import picocli.CommandLine.Parameters;
 /** How to read a dump: the inputs and the options every command that reads one shares. */
 final class DumpOptions {
     @Parameters(arity = "1..*", paramLabel = "INPUT",
-            description = "Dump files, folders (searched recursively) or globs; plain or .gz. "
+            description = "Dump files, folders (searched recursively) or globs; plain, .gz, .zst or .bz2. "
                     + "Commands that rank also take a reviewer table (reviewers.csv) written by 'tally'.")
     List<String> inputs = new ArrayList<>();
 
@@ -38,6 +38,19 @@ final class DumpOptions {
             description = "Where to write rejected rows with file, line, field and reason (default: rejects.tsv in --out, "
                     + "or beside the first input's folder when there is no --out).")
     Path rejects;
+
+    /** Scanning threads, memory budget and temp folder: set by the commands that offer them (see TallyCommand). */
+    int threads = Runtime.getRuntime().availableProcessors();
+    String memory = "256MiB";
+    Path tmp;
+
+    long memoryBytes() {
+        return org.voteworth.demo.DemoOptions.parseSize(memory);
+    }
+
+    Path tmpDir() {
+        return tmp != null ? tmp : Path.of(System.getProperty("java.io.tmpdir"));
+    }
 
     Optional<Path> rejectsFile() {
         return Optional.ofNullable(rejects);

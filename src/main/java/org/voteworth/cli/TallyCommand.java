@@ -47,6 +47,19 @@ final class TallyCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "No progress on stderr.")
     boolean quiet;
 
+    @Option(names = "--threads", paramLabel = "N",
+            description = "Scanning threads (default: the available processors). Results are identical for any N.")
+    int threads = Runtime.getRuntime().availableProcessors();
+
+    @Option(names = "--memory", defaultValue = "256MiB", paramLabel = "SIZE",
+            description = "Memory budget for the tallies (default: ${DEFAULT-VALUE}); above it, partial tallies spill to "
+                    + "--tmp and are merged partition by partition. Units: MB, GB, MiB, GiB.")
+    String memory;
+
+    @Option(names = "--tmp", paramLabel = "DIR",
+            description = "Folder for spilled tallies and buffered rejects (default: the system temp folder).")
+    Path tmp;
+
     @Override
     public Integer call() throws IOException {
         PrintWriter outw = spec.commandLine().getOut();
@@ -54,13 +67,43 @@ final class TallyCommand implements Callable<Integer> {
         OutputFormat f = OutputFormat.parse(format);
         Files.createDirectories(out);
         Path rejects = dump.rejectsFile().orElse(out.resolve("rejects.tsv"));
-        TallyRun.Result r = TallyRun.run(dump, unit(unit), rejects, quiet, err);
-        Path table = out.resolve(r.table().unit() == TallyUnit.REVIEW ? "reviews.csv" : "reviewers.csv");
-        ReviewerTableFile.write(r.table(), table);
-        Files.writeString(out.resolve("reconciliation.txt"), r.summary().describe());
-        outw.print(summary(r, table, f));
-        outw.flush();
-        return r.summary().reconciles() ? 0 : 1;
+        dump.threads = threads;
+        dump.memory = memory;
+        dump.tmp = tmp;
+        TallyUnit u = unit(unit);
+        Path table = out.resolve(u == TallyUnit.REVIEW ? "reviews.csv" : "reviewers.csv");
+        Path reconciliation = out.resolve("reconciliation.txt");
+        // Written under partial names and renamed at the end: an interrupted run leaves nothing that looks complete.
+        List<Path> finals = List.of(table, rejects, reconciliation);
+        List<Path> partials = finals.stream().map(TallyCommand::partial).toList();
+        try (TallyRun.TempCleanup cleanup = TallyRun.TempCleanup.register(() -> partials.forEach(TallyCommand::deleteQuietly))) {
+            for (Path p : finals) {
+                Files.deleteIfExists(p);
+            }
+            TallyRun.Written r = TallyRun.write(dump, u, partials.get(0), partials.get(1), quiet, err);
+            Files.writeString(partials.get(2), r.summary().describe());
+            for (int i = 0; i < finals.size(); i++) {
+                Files.move(partials.get(i), finals.get(i), java.nio.file.StandardCopyOption.REPLACE_EXISTING,
+                        java.nio.file.StandardCopyOption.ATOMIC_MOVE);
+            }
+            TallyRun.Written shown = new TallyRun.Written(r.reviewers(), r.unit(), r.summary(), rejects, r.seconds(), r.bytes(),
+                    r.spills());
+            outw.print(summary(shown, table, f));
+            outw.flush();
+            return r.summary().reconciles() ? 0 : 1;
+        }
+    }
+
+    private static Path partial(Path p) {
+        return p.resolveSibling("." + p.getFileName() + ".partial");
+    }
+
+    private static void deleteQuietly(Path p) {
+        try {
+            Files.deleteIfExists(p);
+        } catch (IOException e) {
+            // Best effort on the way out.
+        }
     }
 
     static TallyUnit unit(String s) {
@@ -71,7 +114,7 @@ final class TallyCommand implements Callable<Integer> {
         };
     }
 
-    static String summary(TallyRun.Result r, Path table, OutputFormat f) {
+    static String summary(TallyRun.Written r, Path table, OutputFormat f) {
         Grid g = new Grid(List.of("file", "read>", "accepted>", "rejected>", "reject_rate>"));
         for (FileReport fr : r.summary().files()) {
             g.add(List.of(fr.file().toString(), Long.toString(fr.rowsRead()), Long.toString(fr.accepted()),
@@ -81,7 +124,7 @@ final class TallyCommand implements Callable<Integer> {
                 Long.toString(r.summary().rejected()), String.format(Locale.ROOT, "%.4f",
                         r.summary().rowsRead() == 0 ? 0.0 : (double) r.summary().rejected() / r.summary().rowsRead())));
         String totals = String.format(Locale.ROOT, "%,d %s from %,d rows in %.2f s (%s); %,d rejected, reasons %s",
-                r.table().size(), r.table().unit() == TallyUnit.REVIEW ? "reviews" : "reviewers", r.summary().accepted(),
+                r.reviewers(), r.unit() == TallyUnit.REVIEW ? "reviews" : "reviewers", r.summary().accepted(),
                 r.seconds(), r.throughput(), r.summary().rejected(), r.summary().rejectsByReason());
         String check = r.summary().reconciles()
                 ? String.format(Locale.ROOT, "read = accepted + rejected holds: %,d = %,d + %,d", r.summary().rowsRead(),
@@ -94,7 +137,8 @@ final class TallyCommand implements Callable<Integer> {
                     + "`\n- rejects: `" + r.rejectsFile() + "`\n";
             case CSV -> g.toCsv();
             case JSON -> Json.object(w -> {
-                w.field("reviewers", r.table().size());
+                w.field("reviewers", r.reviewers());
+                w.field("spills", r.spills());
                 w.field("rows_read", r.summary().rowsRead());
                 w.field("accepted", r.summary().accepted());
                 w.field("rejected", r.summary().rejected());

@@ -2,6 +2,9 @@ package org.voteworth.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
+import java.lang.management.ManagementFactory;
+import java.lang.management.MemoryPoolMXBean;
+import java.lang.management.MemoryType;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
@@ -9,18 +12,19 @@ import java.util.Locale;
 import org.voteworth.source.CategoryFromName;
 import org.voteworth.source.DumpFile;
 import org.voteworth.source.DumpFinder;
-import org.voteworth.source.DumpReader;
 import org.voteworth.source.Format;
 import org.voteworth.source.HeaderMapping;
+import org.voteworth.source.ParallelDumpReader;
 import org.voteworth.source.ProgressListener;
 import org.voteworth.source.RejectLog;
 import org.voteworth.source.ScanSummary;
 import org.voteworth.source.SourceOptions;
+import org.voteworth.tally.BoundedTally;
 import org.voteworth.tally.ReviewerTableFile;
 import org.voteworth.tally.TallyTable;
 import org.voteworth.tally.TallyUnit;
 
-/** Reads a dump into a reviewer table, with progress on stderr and the rejects in a file. */
+/** Reads a dump into a reviewer table on {@code --threads} threads, with progress on stderr and the rejects in a file. */
 final class TallyRun {
     /**
      * What a tally produced.
@@ -33,12 +37,29 @@ final class TallyRun {
      */
     record Result(TallyTable table, ScanSummary summary, Path rejectsFile, double seconds, long bytes) {
         String throughput() {
-            return String.format(Locale.ROOT, "%,.0f rows/s, %.1f MB/s", summary.rowsRead() / Math.max(seconds, 1e-9),
-                    bytes / 1e6 / Math.max(seconds, 1e-9));
+            return TallyRun.throughput(summary.rowsRead(), bytes, seconds);
+        }
+    }
+
+    /**
+     * What a bounded-memory tally wrote.
+     *
+     * @param reviewers reviewers (or reviews) in the written table
+     * @param spills how often partial tallies went to disk
+     */
+    record Written(long reviewers, TallyUnit unit, ScanSummary summary, Path rejectsFile, double seconds, long bytes,
+                   int spills) {
+        String throughput() {
+            return TallyRun.throughput(summary.rowsRead(), bytes, seconds);
         }
     }
 
     private TallyRun() {
+    }
+
+    static String throughput(long rows, long bytes, double seconds) {
+        return String.format(Locale.ROOT, "%,.0f rows/s, %.1f MB/s", rows / Math.max(seconds, 1e-9),
+                bytes / 1e6 / Math.max(seconds, 1e-9));
     }
 
     static SourceOptions sourceOptions(DumpOptions o) throws IOException {
@@ -59,38 +80,133 @@ final class TallyRun {
         return s;
     }
 
+    private static boolean isReviewerTable(DumpOptions o) {
+        return o.inputs.size() == 1 && Files.isRegularFile(Path.of(o.inputs.get(0)))
+                && ReviewerTableFile.looksLikeReviewerTable(Path.of(o.inputs.get(0)));
+    }
+
     /**
-     * Tallies the dump named by {@code o}; a single input that is a reviewer table written by
-     * {@code tally} is read back instead (no rows, no rejects).
+     * Tallies the dump named by {@code o} into one table in memory (for commands that rank); a
+     * single input that is a reviewer table written by {@code tally} is read back instead.
      */
     static Result run(DumpOptions o, TallyUnit unit, Path rejectsFile, boolean quiet, PrintWriter err) throws IOException {
         long start = System.nanoTime();
-        if (o.inputs.size() == 1 && Files.isRegularFile(Path.of(o.inputs.get(0)))
-                && ReviewerTableFile.looksLikeReviewerTable(Path.of(o.inputs.get(0)))) {
+        if (isReviewerTable(o)) {
             Path p = Path.of(o.inputs.get(0));
             TallyTable t = ReviewerTableFile.read(p);
             return new Result(t, new ScanSummary(List.of()), rejectsFile, (System.nanoTime() - start) / 1e9, Files.size(p));
         }
         SourceOptions options = sourceOptions(o);
         List<DumpFile> files = DumpFinder.find(o.inputs, options.categories());
-        TallyTable table = new TallyTable(unit);
-        if (rejectsFile.getParent() != null) {
-            Files.createDirectories(rejectsFile.getParent());
+        // Ranking holds the whole table anyway, so the budget does not apply here.
+        try (BoundedTally tally = new BoundedTally(unit, Long.MAX_VALUE, o.tmpDir())) {
+            ScanSummary summary = scan(o, options, files, tally, rejectsFile, quiet, err, start, o.tmpDir());
+            TallyTable table = tally.mergedInMemory();
+            double seconds = (System.nanoTime() - start) / 1e9;
+            long bytes = files.stream().mapToLong(DumpFile::sizeBytes).sum();
+            if (!quiet) {
+                err.printf(Locale.ROOT, "tally: done, %,d rows from %d files in %.1f s%n", summary.rowsRead(), files.size(), seconds);
+                err.flush();
+            }
+            return new Result(table, summary, rejectsFile, seconds, bytes);
         }
-        ScanSummary summary;
-        try (RejectLog rejects = new RejectLog(rejectsFile)) {
-            summary = new DumpReader(options).read(files, table, rejects, quiet ? ProgressListener.NONE : new Progress(err, start));
-        }
-        long bytes = files.stream().mapToLong(DumpFile::sizeBytes).sum();
-        double seconds = (System.nanoTime() - start) / 1e9;
-        if (!quiet) {
-            err.printf(Locale.ROOT, "tally: done, %,d rows from %d files in %.1f s%n", summary.rowsRead(), files.size(), seconds);
-            err.flush();
-        }
-        return new Result(table, summary, rejectsFile, seconds, bytes);
     }
 
-    /** A plain progress line on stderr every few seconds: done of total, rows per second, time left. */
+    /**
+     * Tallies the dump named by {@code o} within {@code --memory}, writing the reviewer table to
+     * {@code table} (spilling partial tallies to {@code --tmp} when they would pass the budget).
+     */
+    static Written write(DumpOptions o, TallyUnit unit, Path table, Path rejectsFile, boolean quiet, PrintWriter err)
+            throws IOException {
+        long start = System.nanoTime();
+        if (isReviewerTable(o)) {
+            Path p = Path.of(o.inputs.get(0));
+            TallyTable t = ReviewerTableFile.read(p);
+            ReviewerTableFile.write(t, table);
+            return new Written(t.size(), t.unit(), new ScanSummary(List.of()), rejectsFile, (System.nanoTime() - start) / 1e9,
+                    Files.size(p), 0);
+        }
+        SourceOptions options = sourceOptions(o);
+        List<DumpFile> files = DumpFinder.find(o.inputs, options.categories());
+        long budget = o.memoryBytes();
+        Files.createDirectories(o.tmpDir());
+        Path runDir = Files.createTempDirectory(o.tmpDir(), "voteworth-tally-");
+        try (TempCleanup cleanup = TempCleanup.register(() -> deleteTree(runDir));
+             BoundedTally tally = new BoundedTally(unit, budget, runDir)) {
+            ScanSummary summary = scan(o, options, files, tally, rejectsFile, quiet, err, start, runDir);
+            if (!quiet && tally.spilled()) {
+                err.printf(Locale.ROOT, "tally: merging %d spilled partial tallies partition by partition ...%n", tally.spills());
+                err.flush();
+            }
+            tally.write(table);
+            double seconds = (System.nanoTime() - start) / 1e9;
+            long bytes = files.stream().mapToLong(DumpFile::sizeBytes).sum();
+            Written w = new Written(tally.reviewers(), unit, summary, rejectsFile, seconds, bytes, tally.spills());
+            if (!quiet) {
+                err.printf(Locale.ROOT, "tally: done: %,d rows, %,d %s, %,d rejected, %.1f s wall, %s, %s%s%n",
+                        summary.rowsRead(), w.reviewers(), unit == TallyUnit.REVIEW ? "reviews" : "reviewers",
+                        summary.rejected(), seconds, w.throughput(), peakMemory(),
+                        tally.spilled() ? String.format(Locale.ROOT, ", %d spills", tally.spills()) : "");
+                err.flush();
+            }
+            return w;
+        }
+    }
+
+    private static ScanSummary scan(DumpOptions o, SourceOptions options, List<DumpFile> files, BoundedTally tally,
+                                    Path rejectsFile, boolean quiet, PrintWriter err, long start, Path tmp) throws IOException {
+        if (rejectsFile.toAbsolutePath().getParent() != null) {
+            Files.createDirectories(rejectsFile.toAbsolutePath().getParent());
+        }
+        ParallelDumpReader reader = new ParallelDumpReader(options, o.threads).withTempDir(tmp);
+        ProgressListener progress = quiet ? ProgressListener.NONE
+                : System.console() != null ? new Bar(err, start) : new Progress(err, start);
+        try (RejectLog rejects = new RejectLog(rejectsFile)) {
+            ScanSummary s = reader.read(files, w -> tally.newSink(), rejects, progress);
+            if (progress instanceof Bar b) {
+                b.finish();
+            }
+            return s;
+        }
+    }
+
+    /** Deletes a folder and what is in it; quietly does what it can. */
+    static void deleteTree(Path dir) {
+        if (!Files.exists(dir)) {
+            return;
+        }
+        try (java.util.stream.Stream<Path> s = Files.walk(dir)) {
+            for (Path p : s.sorted(java.util.Comparator.reverseOrder()).toList()) {
+                Files.deleteIfExists(p);
+            }
+        } catch (IOException | RuntimeException e) {
+            // Best effort: a file still being written when the JVM stops may stay behind.
+        }
+    }
+
+    /** Peak memory: heap used at most (all pools) and the process's peak resident set (VmHWM) where Linux tells it. */
+    static String peakMemory() {
+        long heap = 0;
+        for (MemoryPoolMXBean p : ManagementFactory.getMemoryPoolMXBeans()) {
+            if (p.getType() == MemoryType.HEAP && p.getPeakUsage() != null) {
+                heap += p.getPeakUsage().getUsed();
+            }
+        }
+        String rss = "";
+        try {
+            for (String line : Files.readAllLines(Path.of("/proc/self/status"))) {
+                if (line.startsWith("VmHWM:")) {
+                    long kb = Long.parseLong(line.replaceAll("[^0-9]", ""));
+                    rss = String.format(Locale.ROOT, ", peak resident %.0f MiB", kb / 1024.0);
+                }
+            }
+        } catch (IOException | RuntimeException e) {
+            // Not Linux: the heap figure alone.
+        }
+        return String.format(Locale.ROOT, "peak heap %.0f MiB%s", heap / 1048576.0, rss);
+    }
+
+    /** A plain progress line on stderr every few seconds: done of total, rows per second, time left. Thread-safe. */
     static final class Progress implements ProgressListener {
         private static final long EVERY_NANOS = 3_000_000_000L;
         private final PrintWriter err;
@@ -104,7 +220,7 @@ final class TallyRun {
         }
 
         @Override
-        public void progress(long bytesConsumed, long bytesTotal, long rowsRead) {
+        public synchronized void progress(long bytesConsumed, long bytesTotal, long rowsRead) {
             long now = System.nanoTime();
             if (now - last < EVERY_NANOS) {
                 return;
@@ -118,8 +234,79 @@ final class TallyRun {
             err.flush();
         }
 
-        private static String mb(long b) {
+        static String mb(long b) {
             return String.format(Locale.ROOT, "%.1f MB", b / 1e6);
+        }
+    }
+
+    /** A progress bar redrawn in place on a terminal, a few times a second. Thread-safe. */
+    static final class Bar implements ProgressListener {
+        private static final long EVERY_NANOS = 250_000_000L;
+        private static final int WIDTH = 30;
+        private final PrintWriter err;
+        private final long start;
+        private long last;
+        private boolean drawn;
+
+        Bar(PrintWriter err, long start) {
+            this.err = err;
+            this.start = start;
+            this.last = start;
+        }
+
+        @Override
+        public synchronized void progress(long bytesConsumed, long bytesTotal, long rowsRead) {
+            long now = System.nanoTime();
+            if (now - last < EVERY_NANOS) {
+                return;
+            }
+            last = now;
+            double secs = (now - start) / 1e9;
+            double frac = bytesTotal == 0 ? 1 : Math.min(1, (double) bytesConsumed / bytesTotal);
+            int fill = (int) Math.round(frac * WIDTH);
+            double left = frac > 0 ? secs / frac - secs : Double.NaN;
+            err.printf(Locale.ROOT, "\r[%s%s] %3.0f %% %s of %s, %,.0f rows/s, %s left   ", "#".repeat(fill),
+                    " ".repeat(WIDTH - fill), 100 * frac, Progress.mb(bytesConsumed), Progress.mb(bytesTotal),
+                    rowsRead / secs, Double.isNaN(left) ? "?" : String.format(Locale.ROOT, "%.0f s", left));
+            err.flush();
+            drawn = true;
+        }
+
+        synchronized void finish() {
+            if (drawn) {
+                err.print("\r" + " ".repeat(100) + "\r");
+                err.flush();
+            }
+        }
+    }
+
+    /** Deletes the spill folder when the JVM is stopped (Ctrl-C) before the run closes it itself. */
+    static final class TempCleanup implements AutoCloseable {
+        private final Thread hook;
+
+        private TempCleanup(Thread hook) {
+            this.hook = hook;
+        }
+
+        private Runnable action;
+
+        static TempCleanup register(Runnable action) {
+            Thread hook = new Thread(action, "voteworth-cleanup");
+            Runtime.getRuntime().addShutdownHook(hook);
+            TempCleanup c = new TempCleanup(hook);
+            c.action = action;
+            return c;
+        }
+
+        /** Runs the cleanup now and drops the hook. */
+        @Override
+        public void close() {
+            action.run();
+            try {
+                Runtime.getRuntime().removeShutdownHook(hook);
+            } catch (IllegalStateException e) {
+                // Already shutting down: the hook runs.
+            }
         }
     }
 }

@@ -14,11 +14,27 @@ import java.nio.file.Path;
 public record DumpFile(Path path, String category, Compression compression, long sizeBytes) {
     /** How a dump file is stored on disk, judged by its name. */
     public enum Compression {
-        NONE, GZIP;
+        NONE, GZIP, ZSTD, BZIP2;
 
         public static Compression of(Path p) {
             String n = p.getFileName().toString().toLowerCase(java.util.Locale.ROOT);
-            return n.endsWith(".gz") ? GZIP : NONE;
+            if (n.endsWith(".gz")) {
+                return GZIP;
+            }
+            if (n.endsWith(".zst") || n.endsWith(".zstd")) {
+                return ZSTD;
+            }
+            return n.endsWith(".bz2") ? BZIP2 : NONE;
+        }
+
+        /** The name people know the format by, for messages. */
+        public String label() {
+            return switch (this) {
+                case NONE -> "plain";
+                case GZIP -> "gzip";
+                case ZSTD -> "zstd";
+                case BZIP2 -> "bzip2";
+            };
         }
     }
 

@@ -17,13 +17,14 @@ import java.util.stream.Stream;
 /**
  * Turns the inputs as the command line gets them into the dump files to read, sorted by path,
  * each once. An input is a file (taken as it is), a folder (searched recursively for
- * {@code *.tsv}, {@code *.csv}, {@code *.txt} and their {@code .gz} forms) or a glob such as
+ * {@code *.tsv}, {@code *.csv}, {@code *.txt} and their {@code .gz}, {@code .zst} and {@code .bz2} forms) or a glob such as
  * {@code dump/*.tsv.gz} or {@code dump/**}{@code /part-*.tsv} ({@code **} crosses folders and
  * also matches none). An input that matches nothing is an error naming it.
  */
 public final class DumpFinder {
     /** File name endings a folder search picks up. */
-    public static final List<String> EXTENSIONS = List.of(".tsv", ".csv", ".txt", ".tsv.gz", ".csv.gz", ".txt.gz");
+    public static final List<String> EXTENSIONS = List.of(".tsv", ".csv", ".txt", ".tsv.gz", ".csv.gz", ".txt.gz",
+            ".tsv.zst", ".csv.zst", ".txt.zst", ".tsv.bz2", ".csv.bz2", ".txt.bz2");
 
     private DumpFinder() {
     }

@@ -35,6 +35,7 @@ public final class DumpScanner {
     private final ReviewRow row = new ReviewRow();
     private byte[] buf;
     private ProgressListener progress = ProgressListener.NONE;
+    private boolean pipelined;
 
     public DumpScanner(SourceOptions options) {
         this(options, DEFAULT_BUFFER);
@@ -50,6 +51,14 @@ public final class DumpScanner {
         this.buf = new byte[bufferSize];
     }
 
+    /**
+     * Whether compressed files are decompressed on a thread of their own while this thread
+     * parses (a pipeline of large buffers): decompression alone is the bottleneck there.
+     */
+    void pipelined(boolean on) {
+        this.pipelined = on;
+    }
+
     /** Told (bytes of this file consumed, its size, rows of it read) after every buffer fill. */
     void onProgress(ProgressListener listener) {
         this.progress = Objects.requireNonNull(listener, "listener");
@@ -63,7 +72,7 @@ public final class DumpScanner {
      * @throws IOException naming the file when it cannot be read
      */
     public FileReport scan(DumpFile file, ReviewSink sink, RejectSink rejects) throws IOException {
-        try (Counting counted = new Counting(open(file)); InputStream in = decompressed(file, counted)) {
+        try (Counting counted = new Counting(open(file)); InputStream in = piped(file, decompressed(file, counted))) {
             return run(file, in, counted, 1, null, sink, rejects);
         }
     }
@@ -216,11 +225,16 @@ public final class DumpScanner {
             }
             return n;
         } catch (EOFException | ZipException e) {
-            if (file.compression() == DumpFile.Compression.GZIP) {
+            if (file.compression() != DumpFile.Compression.NONE) {
                 throw corruptGzip(file, e);
             }
             throw new IOException(file + ": " + e.getMessage(), e);
+        } catch (DumpFormatException e) {
+            throw e;
         } catch (IOException e) {
+            if (file.compression() == DumpFile.Compression.ZSTD || file.compression() == DumpFile.Compression.BZIP2) {
+                throw corruptGzip(file, e);
+            }
             throw new IOException("cannot read " + file + ": " + e.getMessage(), e);
         }
     }
@@ -235,19 +249,31 @@ public final class DumpScanner {
         }
     }
 
-    private static InputStream decompressed(DumpFile file, InputStream in) throws IOException {
-        if (file.compression() != DumpFile.Compression.GZIP) {
-            return in;
-        }
+    private InputStream piped(DumpFile file, InputStream in) {
+        return pipelined && file.compression() != DumpFile.Compression.NONE ? new DecompressingPipe(in, file.toString()) : in;
+    }
+
+    static InputStream decompressed(DumpFile file, InputStream in) throws IOException {
         try {
-            return new GZIPInputStream(in, GZIP_BUFFER);
-        } catch (EOFException | ZipException e) {
+            return switch (file.compression()) {
+                case NONE -> in;
+                case GZIP -> new GZIPInputStream(in, GZIP_BUFFER);
+                // ZstdInputStreamNoFinalizer: closed explicitly, so no finalizer cost per stream.
+                case ZSTD -> new com.github.luben.zstd.ZstdInputStreamNoFinalizer(new java.io.BufferedInputStream(in, GZIP_BUFFER));
+                // true: read every stream of a concatenated file, as bzip2 -d does (pbzip2 writes such files).
+                case BZIP2 -> new org.apache.commons.compress.compressors.bzip2.BZip2CompressorInputStream(
+                        new java.io.BufferedInputStream(in, GZIP_BUFFER), true);
+            };
+        } catch (DumpFormatException e) {
+            throw e;
+        } catch (IOException e) {
             throw corruptGzip(file, e);
         }
     }
 
     private static DumpFormatException corruptGzip(DumpFile file, IOException e) {
-        return new DumpFormatException(file.toString(), 0, "the gzip data is truncated or corrupt (" + e.getMessage()
+        return new DumpFormatException(file.toString(), 0, "the " + file.compression().label()
+                + " data is truncated or corrupt (" + e.getMessage()
                 + "); copy the file again or re-compress it, or remove it from the input", e);
     }
 

@@ -75,6 +75,52 @@ final class KeyIndex {
         return new String(arena, at + 4, len, StandardCharsets.UTF_8);
     }
 
+    /** Which of {@code parts} spill partitions the id of {@code slot} belongs to; the same in every table. */
+    int partition(int slot, int parts) {
+        long r = refs[slot];
+        int h;
+        if (r >= 0) {
+            h = LongIntMap.mix(r);
+        } else {
+            int at = (int) (-r - 1);
+            h = hash(arena, at + 4, readInt(arena, at));
+        }
+        return Math.floorMod(h, parts);
+    }
+
+    /** Writes the id of {@code slot}: a kind byte (0 numeric, 1 bytes) and the number or the bytes. */
+    void writeId(int slot, java.io.DataOutput out) throws java.io.IOException {
+        long r = refs[slot];
+        if (r >= 0) {
+            out.writeByte(0);
+            out.writeLong(r);
+        } else {
+            int at = (int) (-r - 1);
+            int len = readInt(arena, at);
+            out.writeByte(1);
+            out.writeInt(len);
+            out.write(arena, at + 4, len);
+        }
+    }
+
+    /** The slot of an id written by {@link #writeId}, whose kind byte was already read; created if new. */
+    int readId(int kind, java.io.DataInput in, byte[][] scratch) throws java.io.IOException {
+        if (kind == 0) {
+            long n = in.readLong();
+            int s = numeric.getOrPut(n, size);
+            if (s == size) {
+                newSlot(n);
+            }
+            return s;
+        }
+        int len = in.readInt();
+        if (scratch[0].length < len) {
+            scratch[0] = new byte[Math.max(len, 2 * scratch[0].length)];
+        }
+        in.readFully(scratch[0], 0, len);
+        return bytesSlot(scratch[0], 0, len);
+    }
+
     long memoryBytes() {
         return numeric.memoryBytes() + arena.length + table.length * 8L + refs.length * 8L;
     }

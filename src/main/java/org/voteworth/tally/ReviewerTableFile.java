@@ -38,14 +38,24 @@ public final class ReviewerTableFile {
     }
 
     public static void write(TallyTable table, Path file) throws IOException {
-        try (BufferedWriter w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
+        int[] order = table.sortedById();
+        write(java.util.Arrays.stream(order).mapToObj(table::get).iterator(), file);
+    }
+
+    /** Writes tallies already ordered by id (streamed from sorted partitions); returns how many. */
+    static long write(java.util.Iterator<ReviewerTally> sorted, Path file) throws IOException {
+        long n = 0;
+        try (BufferedWriter w = new BufferedWriter(new java.io.OutputStreamWriter(Files.newOutputStream(file),
+                StandardCharsets.UTF_8), 1 << 16)) {
             w.write(String.join(",", HEADER));
             w.write('\n');
-            for (int slot : table.sortedById()) {
-                w.write(row(table.get(slot)));
+            while (sorted.hasNext()) {
+                w.write(row(sorted.next()));
                 w.write('\n');
+                n++;
             }
         }
+        return n;
     }
 
     static String row(ReviewerTally t) {
@@ -130,7 +140,20 @@ public final class ReviewerTableFile {
         return epochDay == ReviewerTally.NO_DATE ? "" : LocalDate.ofEpochDay(epochDay).toString();
     }
 
-    private static String decimal(double v) {
+    /** {@code %.6f}; shares in [0, 1] take a fast path that gives the same digits (ties fall back to the formatter). */
+    static String decimal(double v) {
+        if (v >= 0 && v <= 1) {
+            double x = v * 1e6;
+            double frac = x - Math.floor(x);
+            if (Math.abs(frac - 0.5) > 1e-6) {
+                long m = Math.round(x);
+                if (m >= 1_000_000) {
+                    return "1.000000";
+                }
+                String d = Long.toString(1_000_000 + m);
+                return "0." + d.substring(1);
+            }
+        }
         return String.format(Locale.ROOT, "%.6f", v);
     }
 }

@@ -249,6 +249,164 @@ public final class TallyTable implements ReviewSink {
         return Arrays.stream(sortedById()).mapToObj(this::get).toList();
     }
 
+    /**
+     * Writes every tally to one of {@code parts.length} partition streams, chosen by a hash of the
+     * id that is the same in every table, so that the partitions of many tables can be merged one
+     * at a time. Each stream gets this table's category names first and an end mark last.
+     */
+    void spill(java.io.DataOutputStream[] parts) throws java.io.IOException {
+        for (java.io.DataOutputStream out : parts) {
+            out.writeInt(categories.size());
+            for (int c = 0; c < categories.size(); c++) {
+                out.writeUTF(categories.name(c));
+            }
+        }
+        for (int s = 0; s < size(); s++) {
+            writeSlot(s, parts[index.partition(s, parts.length)]);
+        }
+        for (java.io.DataOutputStream out : parts) {
+            out.writeByte(END);
+        }
+    }
+
+    /** Writes the tallies of {@code slots}, in that order, in the format of {@link #spill}. */
+    void writeRun(int[] slots, java.io.DataOutputStream out) throws java.io.IOException {
+        out.writeInt(categories.size());
+        for (int c = 0; c < categories.size(); c++) {
+            out.writeUTF(categories.name(c));
+        }
+        for (int s : slots) {
+            writeSlot(s, out);
+        }
+        out.writeByte(END);
+    }
+
+    private static final int END = 2;
+
+    private void writeSlot(int s, java.io.DataOutputStream out) throws java.io.IOException {
+        index.writeId(s, out);
+        out.writeInt(reviews[s]);
+        out.writeLong(helpful[s]);
+        out.writeLong(total[s]);
+        out.writeInt(voted[s]);
+        out.writeInt(majority[s]);
+        out.writeLong(maxVotes[s]);
+        out.writeLong(sumSquares[s]);
+        out.writeInt(verified[s]);
+        out.writeInt(incentivised[s]);
+        for (int k = 0; k < 5; k++) {
+            out.writeInt(stars[5 * s + k]);
+        }
+        out.writeInt(firstDay[s]);
+        out.writeInt(lastDay[s]);
+        int n = 0;
+        for (int c = 0; c < categories.size(); c++) {
+            if (byCategory.get((long) s << 20 | c) > 0) {
+                n++;
+            }
+        }
+        out.writeInt(n);
+        for (int c = 0; c < categories.size(); c++) {
+            int v = byCategory.get((long) s << 20 | c);
+            if (v > 0) {
+                out.writeInt(c);
+                out.writeInt(v);
+            }
+        }
+    }
+
+    /** Adds every tally of one stream written by {@link #spill} or {@link #writeRun} (same meaning as {@link #mergeFrom}). */
+    void readSpill(java.io.DataInputStream in) throws java.io.IOException {
+        int nc = in.readInt();
+        int[] catMap = new int[nc];
+        for (int c = 0; c < nc; c++) {
+            catMap[c] = categories.idOf(in.readUTF());
+        }
+        byte[][] scratch = {new byte[64]};
+        int kind;
+        while ((kind = in.readByte()) != END) {
+            int s = index.readId(kind, in, scratch);
+            ensure(s);
+            reviews[s] += in.readInt();
+            helpful[s] += in.readLong();
+            total[s] += in.readLong();
+            voted[s] += in.readInt();
+            majority[s] += in.readInt();
+            maxVotes[s] = Math.max(maxVotes[s], in.readLong());
+            sumSquares[s] += in.readLong();
+            verified[s] += in.readInt();
+            incentivised[s] += in.readInt();
+            for (int k = 0; k < 5; k++) {
+                stars[5 * s + k] += in.readInt();
+            }
+            firstDay[s] = ReviewerTally.minDay(firstDay[s], in.readInt());
+            lastDay[s] = ReviewerTally.maxDay(lastDay[s], in.readInt());
+            int n = in.readInt();
+            for (int j = 0; j < n; j++) {
+                int c = in.readInt();
+                byCategory.add((long) s << 20 | catMap[c], in.readInt());
+            }
+        }
+    }
+
+    /**
+     * Reads one stream written by {@link #writeRun} tally by tally, for merging sorted runs without
+     * holding them: {@link #next()} gives the tallies in the order they were written.
+     */
+    static final class RunReader implements AutoCloseable {
+        private final java.io.DataInputStream in;
+        private final String[] cats;
+
+        RunReader(java.io.DataInputStream in) throws java.io.IOException {
+            this.in = in;
+            cats = new String[in.readInt()];
+            for (int c = 0; c < cats.length; c++) {
+                cats[c] = in.readUTF();
+            }
+        }
+
+        /** The next tally, or empty at the end mark. */
+        java.util.Optional<ReviewerTally> next() throws java.io.IOException {
+            int kind = in.readByte();
+            if (kind == END) {
+                return java.util.Optional.empty();
+            }
+            String id;
+            if (kind == 0) {
+                id = Long.toString(in.readLong());
+            } else {
+                byte[] b = new byte[in.readInt()];
+                in.readFully(b);
+                id = new String(b, java.nio.charset.StandardCharsets.UTF_8);
+            }
+            long reviews = in.readInt();
+            long h = in.readLong();
+            long t = in.readLong();
+            long voted = in.readInt();
+            long majority = in.readInt();
+            long max = in.readLong();
+            long sq = in.readLong();
+            long ver = in.readInt();
+            long inc = in.readInt();
+            StarCounts st = new StarCounts(in.readInt(), in.readInt(), in.readInt(), in.readInt(), in.readInt());
+            int first = in.readInt();
+            int last = in.readInt();
+            int n = in.readInt();
+            TreeMap<String, Long> byCat = new TreeMap<>();
+            for (int j = 0; j < n; j++) {
+                String c = cats[in.readInt()];
+                byCat.merge(c, (long) in.readInt(), Long::sum);
+            }
+            return java.util.Optional.of(new ReviewerTally(id, reviews, h, t, voted, majority, max, sq, ver, inc, st, byCat,
+                    first, last));
+        }
+
+        @Override
+        public void close() throws java.io.IOException {
+            in.close();
+        }
+    }
+
     /** Rough heap footprint, for the memory budget. */
     public long memoryBytes() {
         return index.memoryBytes() + byCategory.memoryBytes() + (long) capacity * (4 * 6 + 8 * 4 + 4 * 5 + 4 * 2);

@@ -1,0 +1,273 @@
+package org.voteworth.tally;
+
+import java.io.BufferedInputStream;
+import java.io.BufferedOutputStream;
+import java.io.DataInputStream;
+import java.io.DataOutputStream;
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Objects;
+import java.util.Optional;
+import java.util.PriorityQueue;
+import java.util.stream.Stream;
+import org.voteworth.source.ReviewRow;
+import org.voteworth.source.ReviewSink;
+
+/**
+ * Per-reviewer tallies in bounded memory: one {@link TallyTable} per scanning worker, and when the
+ * tables together would pass the memory budget, a worker writes its table to hash-partitioned
+ * temporary files and starts afresh. At the end the partitions are merged one at a time (with the
+ * same meaning as {@link TallyTable#mergeFrom}), each sorted by id, and the sorted partitions are
+ * merged into the reviewer table, so the output is the same as without spilling.
+ *
+ * <p>Temporary files live in one folder under the given temp folder; {@link #close()} deletes it,
+ * on success and on failure. Not thread-safe except that each worker sink runs on its own thread.
+ */
+public final class BoundedTally implements AutoCloseable {
+    /** Spill partitions: the merge holds about 1/PARTITIONS of the reviewers at a time. */
+    static final int PARTITIONS = 32;
+    private static final int CHECK_EVERY = 1 << 14;
+
+    private final TallyUnit unit;
+    private final long budget;
+    private final Path tmpRoot;
+    private final List<Worker> workers = new ArrayList<>();
+    private Path spillDir;
+    private int spills;
+    private long reviewers = -1;
+
+    /**
+     * @param budgetBytes heap the tallies may take in all (rough, from {@link TallyTable#memoryBytes()})
+     * @param tmpDir where the spill folder is made
+     */
+    public BoundedTally(TallyUnit unit, long budgetBytes, Path tmpDir) {
+        this.unit = Objects.requireNonNull(unit, "unit");
+        if (budgetBytes < 1) {
+            throw new IllegalArgumentException("--memory must be positive, got " + budgetBytes + " bytes");
+        }
+        this.budget = budgetBytes;
+        this.tmpRoot = Objects.requireNonNull(tmpDir, "tmpDir");
+    }
+
+    /** A sink for one scanning worker; ask for all of them before scanning starts. */
+    public synchronized ReviewSink newSink() {
+        Worker w = new Worker(workers.size());
+        workers.add(w);
+        return w;
+    }
+
+    /** Whether any tallies went to disk. */
+    public synchronized boolean spilled() {
+        return spills > 0;
+    }
+
+    /** How many times a worker's table was written to disk. */
+    public synchronized int spills() {
+        return spills;
+    }
+
+    /** Reviewers (or reviews) in the table written by {@link #write}; -1 before it ran. */
+    public long reviewers() {
+        return reviewers;
+    }
+
+    /** The spill folder, when one was made (tests check that it is gone after {@link #close()}). */
+    Optional<Path> spillDir() {
+        return Optional.ofNullable(spillDir);
+    }
+
+    /**
+     * Writes the reviewer table (ordered by id) to {@code file}; call once, after scanning.
+     * Without spilling, the workers' tables are merged in memory when that fits the budget.
+     */
+    public void write(Path file) throws IOException {
+        long inMemory = workers.stream().mapToLong(w -> w.table.memoryBytes()).sum();
+        // Merging and sorting in memory needs about twice the tables' footprint.
+        if (!spilled() && 2 * inMemory <= budget) {
+            TallyTable all = mergedInMemory();
+            reviewers = all.size();
+            ReviewerTableFile.write(all, file);
+            return;
+        }
+        for (Worker w : workers) {
+            w.spill();
+        }
+        List<Path> runs = new ArrayList<>();
+        for (int p = 0; p < PARTITIONS; p++) {
+            TallyTable t = new TallyTable(unit);
+            for (Path f : partitionFiles(p)) {
+                try (DataInputStream in = input(f)) {
+                    t.readSpill(in);
+                }
+                Files.delete(f);
+            }
+            Path run = spillDir.resolve("run-" + p + ".bin");
+            try (DataOutputStream out = output(run)) {
+                t.writeRun(t.sortedById(), out);
+            }
+            runs.add(run);
+        }
+        reviewers = ReviewerTableFile.write(mergeRuns(runs), file);
+    }
+
+    /** The workers' tables merged into one, ignoring the budget (for commands that rank in memory). */
+    public TallyTable mergedInMemory() {
+        if (spilled()) {
+            throw new IllegalStateException("tallies were spilled to disk; use write(file) instead");
+        }
+        TallyTable all = workers.isEmpty() ? new TallyTable(unit) : workers.get(0).table;
+        for (int i = 1; i < workers.size(); i++) {
+            all.mergeFrom(workers.get(i).table);
+            workers.get(i).table = new TallyTable(unit);
+        }
+        return all;
+    }
+
+    private List<Path> partitionFiles(int p) throws IOException {
+        String suffix = "-p" + p + ".bin";
+        try (Stream<Path> s = Files.list(spillDir)) {
+            return s.filter(f -> f.getFileName().toString().startsWith("spill-") && f.getFileName().toString().endsWith(suffix))
+                    .sorted().toList();
+        }
+    }
+
+    /** Merges runs sorted by id whose ids are disjoint (hash partitions) into one sorted stream. */
+    private static java.util.Iterator<ReviewerTally> mergeRuns(List<Path> runs) throws IOException {
+        record Head(ReviewerTally tally, TallyTable.RunReader from) {
+        }
+        PriorityQueue<Head> heads = new PriorityQueue<>(Comparator.comparing((Head h) -> h.tally.id()));
+        for (Path r : runs) {
+            TallyTable.RunReader reader = new TallyTable.RunReader(input(r));
+            Optional<ReviewerTally> first = reader.next();
+            if (first.isPresent()) {
+                heads.add(new Head(first.get(), reader));
+            } else {
+                reader.close();
+            }
+        }
+        return new java.util.Iterator<>() {
+            @Override
+            public boolean hasNext() {
+                return !heads.isEmpty();
+            }
+
+            @Override
+            public ReviewerTally next() {
+                Head h = heads.poll();
+                try {
+                    Optional<ReviewerTally> n = h.from.next();
+                    if (n.isPresent()) {
+                        heads.add(new Head(n.get(), h.from));
+                    } else {
+                        h.from.close();
+                    }
+                } catch (IOException e) {
+                    throw new UncheckedIOException("cannot read a spilled tally: " + e.getMessage(), e);
+                }
+                return h.tally;
+            }
+        };
+    }
+
+    private static DataInputStream input(Path f) throws IOException {
+        return new DataInputStream(new BufferedInputStream(Files.newInputStream(f), 1 << 16));
+    }
+
+    private static DataOutputStream output(Path f) throws IOException {
+        return new DataOutputStream(new BufferedOutputStream(Files.newOutputStream(f), 1 << 16));
+    }
+
+    private synchronized Path spillFolder() throws IOException {
+        if (spillDir == null) {
+            Files.createDirectories(tmpRoot);
+            spillDir = Files.createTempDirectory(tmpRoot, "voteworth-spill-");
+        }
+        return spillDir;
+    }
+
+    private synchronized int nextSpill() {
+        return spills++;
+    }
+
+    private synchronized long othersBytes(Worker self) {
+        long sum = 0;
+        for (Worker w : workers) {
+            if (w != self) {
+                sum += w.bytes;
+            }
+        }
+        return sum;
+    }
+
+    /** Deletes the spill folder and everything in it. */
+    @Override
+    public synchronized void close() throws IOException {
+        if (spillDir == null || !Files.exists(spillDir)) {
+            return;
+        }
+        try (Stream<Path> s = Files.list(spillDir)) {
+            for (Path f : s.toList()) {
+                Files.deleteIfExists(f);
+            }
+        }
+        Files.deleteIfExists(spillDir);
+    }
+
+    private final class Worker implements ReviewSink {
+        private final int number;
+        private TallyTable table = new TallyTable(unit);
+        private int sinceCheck;
+        /** Last measured footprint, read by other workers under the outer lock. */
+        private volatile long bytes;
+
+        Worker(int number) {
+            this.number = number;
+        }
+
+        @Override
+        public void accept(ReviewRow row) {
+            table.accept(row);
+            if (++sinceCheck == CHECK_EVERY) {
+                sinceCheck = 0;
+                long mine = table.memoryBytes();
+                bytes = mine;
+                if (mine + othersBytes(this) > budget) {
+                    try {
+                        spill();
+                    } catch (IOException e) {
+                        throw new UncheckedIOException("cannot spill tallies to " + tmpRoot + ": " + e.getMessage()
+                                + " (free some space there, point --tmp elsewhere, or raise --memory)", e);
+                    }
+                }
+            }
+        }
+
+        void spill() throws IOException {
+            if (table.size() == 0) {
+                return;
+            }
+            Path dir = spillFolder();
+            int n = nextSpill();
+            DataOutputStream[] parts = new DataOutputStream[PARTITIONS];
+            try {
+                for (int p = 0; p < PARTITIONS; p++) {
+                    parts[p] = output(dir.resolve(String.format(java.util.Locale.ROOT, "spill-w%03d-%06d-p%d.bin", number, n, p)));
+                }
+                table.spill(parts);
+            } finally {
+                for (DataOutputStream o : parts) {
+                    if (o != null) {
+                        o.close();
+                    }
+                }
+            }
+            table = new TallyTable(unit);
+            bytes = 0;
+        }
+    }
+}
