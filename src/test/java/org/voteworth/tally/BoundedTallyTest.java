@@ -1,0 +1,114 @@
+package org.voteworth.tally;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Random;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.voteworth.source.CategoryFromName;
+import org.voteworth.source.DumpFile;
+import org.voteworth.source.DumpFinder;
+import org.voteworth.source.ParallelDumpReader;
+import org.voteworth.source.ProgressListener;
+import org.voteworth.source.RejectCounter;
+import org.voteworth.source.SourceOptions;
+import org.voteworth.demo.DemoDumpGenerator;
+import org.voteworth.demo.DemoOptions;
+
+/**
+ * Spilling must not change the result: the reference is the plain in-memory {@link TallyTable}
+ * (whose merge is property-tested in TallyTableTest) written by {@link ReviewerTableFile}.
+ */
+class BoundedTallyTest {
+    @TempDir
+    Path dir;
+
+    @Test
+    void aTinyBudgetSpillsAndGivesTheSameReviewerTableForEveryThreadCount() throws IOException {
+        new DemoDumpGenerator().generate(dir.resolve("dump"), DemoOptions.rows(40_000).withGzip(false).withCategories(3));
+        List<DumpFile> files = DumpFinder.find(List.of(dir.resolve("dump").toString()), CategoryFromName.defaults());
+        SourceOptions o = SourceOptions.defaults();
+        TallyTable reference = new TallyTable();
+        new org.voteworth.source.DumpReader(o).read(files, reference, new RejectCounter());
+        Path expected = dir.resolve("expected.csv");
+        ReviewerTableFile.write(reference, expected);
+
+        for (int threads : new int[] {1, 2, 3, 7}) {
+            for (long budget : new long[] {Long.MAX_VALUE, 200_000}) {
+                Path tmp = Files.createDirectories(dir.resolve("tmp-" + threads + "-" + budget));
+                Path got = dir.resolve("got-" + threads + "-" + budget + ".csv");
+                BoundedTally tally = new BoundedTally(TallyUnit.REVIEWER, budget, tmp);
+                try (tally) {
+                    new ParallelDumpReader(o, threads).withTempDir(tmp).read(files, w -> tally.newSink(), new RejectCounter(),
+                            ProgressListener.NONE);
+                    tally.write(got);
+                    assertThat(tally.spilled()).as("budget %d", budget).isEqualTo(budget != Long.MAX_VALUE);
+                    assertThat(tally.reviewers()).isEqualTo(reference.size());
+                }
+                assertThat(Files.mismatch(expected, got)).as("threads %d budget %d", threads, budget).isEqualTo(-1L);
+                try (var s = Files.list(tmp)) {
+                    assertThat(s).as("temp files left in %s", tmp).isEmpty();
+                }
+            }
+        }
+    }
+
+    @Test
+    void nonNumericIdsSurviveASpill() throws IOException {
+        Random rnd = new Random(3);
+        TallyTable reference = new TallyTable();
+        BoundedTally tally = new BoundedTally(TallyUnit.REVIEWER, 1, dir);
+        org.voteworth.source.ReviewSink sink = tally.newSink();
+        org.voteworth.source.ReviewRow row = new org.voteworth.source.ReviewRow();
+        row.file = new DumpFile(dir.resolve("x.tsv"), "toys", DumpFile.Compression.NONE, 0);
+        for (int i = 0; i < 50_000; i++) {
+            String id = switch (i % 3) {
+                case 0 -> Integer.toString(rnd.nextInt(3000));
+                case 1 -> "0" + rnd.nextInt(3000);
+                default -> "rev-é" + rnd.nextInt(3000);
+            };
+            long total = rnd.nextInt(20);
+            long helpful = total == 0 ? 0 : rnd.nextInt((int) total + 1);
+            String cat = i % 5 == 0 ? "games" : "toys";
+            reference.add(id, helpful, total, 1 + i % 5, i % 2 == 0, i % 7 == 0, cat, 18000 + i % 400);
+            byte[] b = (id + "|" + cat).getBytes(java.nio.charset.StandardCharsets.UTF_8);
+            row.buf = b;
+            row.reviewerOff = 0;
+            row.reviewerLen = id.getBytes(java.nio.charset.StandardCharsets.UTF_8).length;
+            row.categoryBuf = b;
+            row.categoryOff = row.reviewerLen + 1;
+            row.categoryLen = b.length - row.categoryOff;
+            row.helpful = helpful;
+            row.total = total;
+            row.stars = 1 + i % 5;
+            row.verified = i % 2 == 0 ? 1 : 0;
+            row.incentivised = i % 7 == 0 ? 1 : 0;
+            row.epochDay = 18000 + i % 400;
+            sink.accept(row);
+        }
+        Path got = dir.resolve("got.csv");
+        Path expected = dir.resolve("expected.csv");
+        try (tally) {
+            tally.write(got);
+            assertThat(tally.spilled()).isTrue();
+        }
+        ReviewerTableFile.write(reference, expected);
+        assertThat(Files.mismatch(expected, got)).isEqualTo(-1L);
+        assertThat(tally.spillDir()).hasValueSatisfying(d -> assertThat(d).doesNotExist());
+    }
+
+    @Test
+    void fastDecimalMatchesTheFormatter() {
+        Random rnd = new Random(5);
+        for (int i = 0; i < 200_000; i++) {
+            long t = 1 + rnd.nextInt(5000);
+            double v = i % 2 == 0 ? (double) rnd.nextInt((int) t + 1) / t : rnd.nextDouble();
+            // Reference: java.util.Formatter's %.6f (HALF_UP on the exact binary value).
+            assertThat(ReviewerTableFile.decimal(v)).isEqualTo(String.format(java.util.Locale.ROOT, "%.6f", v));
+        }
+    }
+}
