@@ -60,7 +60,7 @@ public final class Main implements Runnable {
 
     @Override
     public void run() {
-        throw new CommandLine.ParameterException(spec.commandLine(), "name a command: demo, generate, tally or rank (see --help)");
+        throw new CommandLine.ParameterException(spec.commandLine(), "name a command (see --help)");
     }
 
     /** The version from the jar manifest, or "development" when run from classes. */
