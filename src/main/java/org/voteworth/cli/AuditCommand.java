@@ -2,7 +2,6 @@ package org.voteworth.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashSet;
@@ -82,15 +81,8 @@ final class AuditCommand implements Callable<Integer> {
             + " when any condition holds, e.g. 'expected-below>1,min-probability<0.5'.")
     String failIf;
 
-    @Option(names = "--format", defaultValue = "table", paramLabel = "table|md|csv|json",
-            description = "Output format (default: ${DEFAULT-VALUE}).")
-    String format;
-
-    @Option(names = "--out", paramLabel = "DIR", description = "Write audit.EXT into this folder instead of stdout.")
-    Path out;
-
-    @Option(names = "--quiet", description = "No progress or reconciliation on stderr.")
-    boolean quiet;
+    @Mixin
+    ReportOptions report;
 
     @Override
     public Integer call() throws IOException {
@@ -101,15 +93,12 @@ final class AuditCommand implements Callable<Integer> {
         if (top < 0) {
             throw new IllegalArgumentException("--top must be 0 (the list size) or more, not " + top);
         }
-        OutputFormat f = OutputFormat.parse(format);
+        OutputFormat f = report.format();
         FailPolicy policy = failIf == null ? FailPolicy.NONE : FailPolicy.parse(failIf);
         PromotionList promoted = PromotionList.read(list);
         PrintWriter err = spec.commandLine().getErr();
-        if (out != null) {
-            Files.createDirectories(out);
-        }
-        Path rejects = dump.rejectsFile().orElse(out != null ? out.resolve("rejects.tsv") : Path.of("voteworth-rejects.tsv"));
-        TallyRun.Result t = AnalysisInput.read(dump, scoring, org.voteworth.tally.TallyUnit.REVIEWER, rejects, quiet, err);
+        Path rejects = report.prepare(dump);
+        TallyRun.Result t = AnalysisInput.read(dump, scoring, org.voteworth.tally.TallyUnit.REVIEWER, rejects, report.quiet, err);
         PriorFit fit = RankRun.prior(t.table(), scoring);
         RuleSettings settings = new RuleSettings(scoring.confidence, scoring.quantile, fit.prior());
         Ranking primary = Ranker.rank(t.table(), Rules.byName(scoring.rule, settings), scoring.entryBar());
@@ -129,16 +118,13 @@ final class AuditCommand implements Callable<Integer> {
         p.put("rule", primary.rule().label() + ", " + scoring.entryBar().describe());
         p.put("monte carlo", uncertainty.draws + " draws, seed " + uncertainty.seed);
         p.put("policy", failIf == null ? "none" : failIf);
-        AnalysisInput.emit(spec, out, "audit", f, AuditWriter.write(r, f, p, failures));
-        if (!quiet && !t.summary().files().isEmpty()) {
-            err.print(t.summary().describe());
-            err.flush();
-        }
+        report.emit(spec, "audit", f, AuditWriter.write(r, f, p, failures));
+        int reconciled = report.finish(t, err);
         if (!failures.isEmpty()) {
             err.println("voteworth audit: the list fails the policy: " + String.join("; ", failures));
             err.flush();
             return POLICY_FAILED;
         }
-        return t.summary().reconciles() ? 0 : 1;
+        return reconciled;
     }
 }

@@ -2,7 +2,6 @@ package org.voteworth.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashSet;
@@ -56,22 +55,15 @@ final class CompareCommand implements Callable<Integer> {
     @Option(names = "--top", defaultValue = "10", paramLabel = "K", description = "Size of each list (default: ${DEFAULT-VALUE}).")
     int top;
 
-    @Option(names = "--format", defaultValue = "table", paramLabel = "table|md|csv|json",
-            description = "Output format (default: ${DEFAULT-VALUE}).")
-    String format;
-
-    @Option(names = "--out", paramLabel = "DIR", description = "Write compare.EXT into this folder instead of stdout.")
-    Path out;
-
-    @Option(names = "--quiet", description = "No progress or reconciliation on stderr.")
-    boolean quiet;
+    @Mixin
+    ReportOptions report;
 
     @Override
     public Integer call() throws IOException {
         if (top < 1) {
             throw new IllegalArgumentException("--top must be at least 1, not " + top);
         }
-        OutputFormat f = OutputFormat.parse(format);
+        OutputFormat f = report.format();
         Set<String> names = new LinkedHashSet<>();
         if (spec.commandLine().getParseResult().hasMatchedOption("--rule")) {
             names.add(scoring.rule);
@@ -82,11 +74,8 @@ final class CompareCommand implements Callable<Integer> {
                     + ": give --rules A,B[,C...]");
         }
         PrintWriter err = spec.commandLine().getErr();
-        if (out != null) {
-            Files.createDirectories(out);
-        }
-        Path rejects = dump.rejectsFile().orElse(out != null ? out.resolve("rejects.tsv") : Path.of("voteworth-rejects.tsv"));
-        TallyRun.Result t = AnalysisInput.read(dump, scoring, org.voteworth.tally.TallyUnit.REVIEWER, rejects, quiet, err);
+        Path rejects = report.prepare(dump);
+        TallyRun.Result t = AnalysisInput.read(dump, scoring, org.voteworth.tally.TallyUnit.REVIEWER, rejects, report.quiet, err);
         PriorFit fit = RankRun.prior(t.table(), scoring);
         RuleSettings settings = new RuleSettings(scoring.confidence, scoring.quantile, fit.prior());
         List<Ranking> rankings = new ArrayList<>();
@@ -97,11 +86,7 @@ final class CompareCommand implements Callable<Integer> {
         Map<String, String> p = AnalysisInput.parameters(fit, scoring, dump, t.table());
         p.put("entry bar", scoring.entryBar().describe());
         p.put("rank-biased overlap", "extrapolated (RBO_EXT), persistence p = " + persistence);
-        AnalysisInput.emit(spec, out, "compare", f, CompareWriter.write(r, f, p));
-        if (!quiet && !t.summary().files().isEmpty()) {
-            err.print(t.summary().describe());
-            err.flush();
-        }
-        return t.summary().reconciles() ? 0 : 1;
+        report.emit(spec, "compare", f, CompareWriter.write(r, f, p));
+        return report.finish(t, err);
     }
 }

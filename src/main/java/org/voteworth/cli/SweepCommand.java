@@ -2,7 +2,6 @@ package org.voteworth.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -52,15 +51,8 @@ final class SweepCommand implements Callable<Integer> {
     @Option(names = "--top", defaultValue = "10", paramLabel = "K", description = "Size of each list (default: ${DEFAULT-VALUE}).")
     int top;
 
-    @Option(names = "--format", defaultValue = "table", paramLabel = "table|md|csv|json",
-            description = "Output format (default: ${DEFAULT-VALUE}).")
-    String format;
-
-    @Option(names = "--out", paramLabel = "DIR", description = "Write sweep.EXT into this folder instead of stdout.")
-    Path out;
-
-    @Option(names = "--quiet", description = "No progress or reconciliation on stderr.")
-    boolean quiet;
+    @Mixin
+    ReportOptions report;
 
     @Override
     public Integer call() throws IOException {
@@ -72,24 +64,17 @@ final class SweepCommand implements Callable<Integer> {
                 throw new IllegalArgumentException("--bars: an entry bar cannot be negative, got " + b);
             }
         }
-        OutputFormat f = OutputFormat.parse(format);
+        OutputFormat f = report.format();
         PrintWriter err = spec.commandLine().getErr();
-        if (out != null) {
-            Files.createDirectories(out);
-        }
-        Path rejects = dump.rejectsFile().orElse(out != null ? out.resolve("rejects.tsv") : Path.of("voteworth-rejects.tsv"));
-        TallyRun.Result t = AnalysisInput.read(dump, scoring, org.voteworth.tally.TallyUnit.REVIEWER, rejects, quiet, err);
+        Path rejects = report.prepare(dump);
+        TallyRun.Result t = AnalysisInput.read(dump, scoring, org.voteworth.tally.TallyUnit.REVIEWER, rejects, report.quiet, err);
         PriorFit fit = RankRun.prior(t.table(), scoring);
         RuleSettings settings = new RuleSettings(scoring.confidence, scoring.quantile, fit.prior());
         List<String> names = spec.commandLine().getParseResult().hasMatchedOption("--rule") ? List.of(scoring.rule) : rules;
         List<RankingRule> chosen = names.stream().map(n -> Rules.byName(n.trim(), settings)).toList();
         SweepResult r = ThresholdSweep.run(t.table(), chosen, scoring.entryBar().on(), bars, top, privacy.ids());
         Map<String, String> p = AnalysisInput.parameters(fit, scoring, dump, t.table());
-        AnalysisInput.emit(spec, out, "sweep", f, SweepWriter.write(r, f, p));
-        if (!quiet && !t.summary().files().isEmpty()) {
-            err.print(t.summary().describe());
-            err.flush();
-        }
-        return t.summary().reconciles() ? 0 : 1;
+        report.emit(spec, "sweep", f, SweepWriter.write(r, f, p));
+        return report.finish(t, err);
     }
 }

@@ -9,6 +9,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
+import java.util.function.UnaryOperator;
 import org.voteworth.source.CategoryFromName;
 import org.voteworth.source.DumpFile;
 import org.voteworth.source.DumpFinder;
@@ -17,12 +18,14 @@ import org.voteworth.source.HeaderMapping;
 import org.voteworth.source.ParallelDumpReader;
 import org.voteworth.source.ProgressListener;
 import org.voteworth.source.RejectLog;
+import org.voteworth.source.ReviewSink;
 import org.voteworth.source.ScanSummary;
 import org.voteworth.source.SourceOptions;
 import org.voteworth.tally.BoundedTally;
 import org.voteworth.tally.ReviewerTableFile;
 import org.voteworth.tally.TallyTable;
 import org.voteworth.tally.TallyUnit;
+import org.voteworth.tally.VoteCap;
 
 /** Reads a dump into a reviewer table on {@code --threads} threads, with progress on stderr and the rejects in a file. */
 final class TallyRun {
@@ -90,8 +93,25 @@ final class TallyRun {
      * single input that is a reviewer table written by {@code tally} is read back instead.
      */
     static Result run(DumpOptions o, TallyUnit unit, Path rejectsFile, boolean quiet, PrintWriter err) throws IOException {
+        return run(o, unit, rejectsFile, quiet, err, 0);
+    }
+
+    /**
+     * As {@link #run(DumpOptions, TallyUnit, Path, boolean, PrintWriter)}, with each review's votes
+     * capped at {@code capVotes} before they are tallied ({@link VoteCap}; 0 = no cap). The cap needs
+     * each review's votes, so it refuses a reviewer table read back from CSV.
+     */
+    static Result run(DumpOptions o, TallyUnit unit, Path rejectsFile, boolean quiet, PrintWriter err, long capVotes)
+            throws IOException {
+        if (capVotes < 0) {
+            throw new IllegalArgumentException("--cap-votes must be at least 1 vote per review (or 0 for no cap), not " + capVotes);
+        }
         long start = System.nanoTime();
         if (isReviewerTable(o)) {
+            if (capVotes > 0) {
+                throw new IllegalArgumentException("--cap-votes needs each review's votes, but " + o.inputs.get(0)
+                        + " is a reviewer table (votes already summed per reviewer): give the dump instead");
+            }
             Path p = Path.of(o.inputs.get(0));
             TallyTable t = ReviewerTableFile.read(p);
             return new Result(t, new ScanSummary(List.of()), rejectsFile, (System.nanoTime() - start) / 1e9, Files.size(p));
@@ -100,12 +120,14 @@ final class TallyRun {
         List<DumpFile> files = DumpFinder.find(o.inputs, options.categories());
         // Ranking holds the whole table anyway, so the budget does not apply here.
         try (BoundedTally tally = new BoundedTally(unit, Long.MAX_VALUE, o.tmpDir())) {
-            ScanSummary summary = scan(o, options, files, tally, rejectsFile, quiet, err, start, o.tmpDir());
+            UnaryOperator<ReviewSink> cap = capVotes == 0 ? UnaryOperator.identity() : sink -> new VoteCap(capVotes, sink);
+            ScanSummary summary = scan(o, options, files, tally, cap, rejectsFile, quiet, err, start, o.tmpDir());
             TallyTable table = tally.mergedInMemory();
             double seconds = (System.nanoTime() - start) / 1e9;
             long bytes = files.stream().mapToLong(DumpFile::sizeBytes).sum();
             if (!quiet) {
-                err.printf(Locale.ROOT, "tally: done, %,d rows from %d files in %.1f s%n", summary.rowsRead(), files.size(), seconds);
+                err.printf(Locale.ROOT, "tally: done, %,d rows from %d files in %.1f s%s%n", summary.rowsRead(), files.size(), seconds,
+                        capVotes == 0 ? "" : ", votes capped at " + capVotes + " per review");
                 err.flush();
             }
             return new Result(table, summary, rejectsFile, seconds, bytes);
@@ -133,7 +155,7 @@ final class TallyRun {
         Path runDir = Files.createTempDirectory(o.tmpDir(), "voteworth-tally-");
         try (TempCleanup cleanup = TempCleanup.register(() -> deleteTree(runDir));
              BoundedTally tally = new BoundedTally(unit, budget, runDir)) {
-            ScanSummary summary = scan(o, options, files, tally, rejectsFile, quiet, err, start, runDir);
+            ScanSummary summary = scan(o, options, files, tally, UnaryOperator.identity(), rejectsFile, quiet, err, start, runDir);
             if (!quiet && tally.spilled()) {
                 err.printf(Locale.ROOT, "tally: merging %d spilled partial tallies partition by partition ...%n", tally.spills());
                 err.flush();
@@ -154,17 +176,17 @@ final class TallyRun {
     }
 
     private static ScanSummary scan(DumpOptions o, SourceOptions options, List<DumpFile> files, BoundedTally tally,
-                                    Path rejectsFile, boolean quiet, PrintWriter err, long start, Path tmp) throws IOException {
+                                    UnaryOperator<ReviewSink> wrap, Path rejectsFile, boolean quiet, PrintWriter err, long start, Path tmp) throws IOException {
         if (rejectsFile.toAbsolutePath().getParent() != null) {
             Files.createDirectories(rejectsFile.toAbsolutePath().getParent());
         }
         ParallelDumpReader reader = new ParallelDumpReader(options, o.threads).withTempDir(tmp);
         ProgressListener progress = quiet ? ProgressListener.NONE
-                : System.console() != null ? new Bar(err, start) : new Progress(err, start);
+                : new Progress(err, start, System.console() != null);
         try (RejectLog rejects = new RejectLog(rejectsFile)) {
-            ScanSummary s = reader.read(files, w -> tally.newSink(), rejects, progress);
-            if (progress instanceof Bar b) {
-                b.finish();
+            ScanSummary s = reader.read(files, w -> wrap.apply(tally.newSink()), rejects, progress);
+            if (progress instanceof Progress p) {
+                p.finish();
             }
             return s;
         }
@@ -206,32 +228,60 @@ final class TallyRun {
         return String.format(Locale.ROOT, "peak heap %.0f MiB%s", heap / 1048576.0, rss);
     }
 
-    /** A plain progress line on stderr every few seconds: done of total, rows per second, time left. Thread-safe. */
+    /**
+     * Progress on stderr: on a terminal a bar redrawn in place a few times a second, otherwise a
+     * plain line every few seconds; both give done of total, rows per second and time left.
+     * Thread-safe.
+     */
     static final class Progress implements ProgressListener {
-        private static final long EVERY_NANOS = 3_000_000_000L;
+        private static final int WIDTH = 30;
         private final PrintWriter err;
         private final long start;
+        private final boolean bar;
+        private final long everyNanos;
         private long last;
+        private boolean drawn;
 
-        Progress(PrintWriter err, long start) {
+        Progress(PrintWriter err, long start, boolean bar) {
             this.err = err;
             this.start = start;
+            this.bar = bar;
+            this.everyNanos = bar ? 250_000_000L : 3_000_000_000L;
             this.last = start;
         }
 
         @Override
         public synchronized void progress(long bytesConsumed, long bytesTotal, long rowsRead) {
             long now = System.nanoTime();
-            if (now - last < EVERY_NANOS) {
+            if (now - last < everyNanos) {
                 return;
             }
             last = now;
             double secs = (now - start) / 1e9;
             double frac = bytesTotal == 0 ? 1 : (double) bytesConsumed / bytesTotal;
+            if (bar) {
+                frac = Math.min(1, frac);
+            }
             double left = frac > 0 ? secs / frac - secs : Double.NaN;
-            err.printf(Locale.ROOT, "tally: %s of %s (%.0f %%), %,d rows, %,.0f rows/s, about %.0f s left%n",
-                    mb(bytesConsumed), mb(bytesTotal), 100 * frac, rowsRead, rowsRead / secs, left);
+            if (bar) {
+                int fill = (int) Math.round(frac * WIDTH);
+                err.printf(Locale.ROOT, "\r[%s%s] %3.0f %% %s of %s, %,.0f rows/s, %s left   ", "#".repeat(fill),
+                        " ".repeat(WIDTH - fill), 100 * frac, mb(bytesConsumed), mb(bytesTotal),
+                        rowsRead / secs, Double.isNaN(left) ? "?" : String.format(Locale.ROOT, "%.0f s", left));
+                drawn = true;
+            } else {
+                err.printf(Locale.ROOT, "tally: %s of %s (%.0f %%), %,d rows, %,.0f rows/s, about %.0f s left%n",
+                        mb(bytesConsumed), mb(bytesTotal), 100 * frac, rowsRead, rowsRead / secs, left);
+            }
             err.flush();
+        }
+
+        /** Clears a drawn bar so the summary starts on a clean line. */
+        synchronized void finish() {
+            if (drawn) {
+                err.print("\r" + " ".repeat(100) + "\r");
+                err.flush();
+            }
         }
 
         static String mb(long b) {
@@ -239,62 +289,19 @@ final class TallyRun {
         }
     }
 
-    /** A progress bar redrawn in place on a terminal, a few times a second. Thread-safe. */
-    static final class Bar implements ProgressListener {
-        private static final long EVERY_NANOS = 250_000_000L;
-        private static final int WIDTH = 30;
-        private final PrintWriter err;
-        private final long start;
-        private long last;
-        private boolean drawn;
-
-        Bar(PrintWriter err, long start) {
-            this.err = err;
-            this.start = start;
-            this.last = start;
-        }
-
-        @Override
-        public synchronized void progress(long bytesConsumed, long bytesTotal, long rowsRead) {
-            long now = System.nanoTime();
-            if (now - last < EVERY_NANOS) {
-                return;
-            }
-            last = now;
-            double secs = (now - start) / 1e9;
-            double frac = bytesTotal == 0 ? 1 : Math.min(1, (double) bytesConsumed / bytesTotal);
-            int fill = (int) Math.round(frac * WIDTH);
-            double left = frac > 0 ? secs / frac - secs : Double.NaN;
-            err.printf(Locale.ROOT, "\r[%s%s] %3.0f %% %s of %s, %,.0f rows/s, %s left   ", "#".repeat(fill),
-                    " ".repeat(WIDTH - fill), 100 * frac, Progress.mb(bytesConsumed), Progress.mb(bytesTotal),
-                    rowsRead / secs, Double.isNaN(left) ? "?" : String.format(Locale.ROOT, "%.0f s", left));
-            err.flush();
-            drawn = true;
-        }
-
-        synchronized void finish() {
-            if (drawn) {
-                err.print("\r" + " ".repeat(100) + "\r");
-                err.flush();
-            }
-        }
-    }
-
     /** Deletes the spill folder when the JVM is stopped (Ctrl-C) before the run closes it itself. */
     static final class TempCleanup implements AutoCloseable {
+        private final Runnable action;
         private final Thread hook;
 
-        private TempCleanup(Thread hook) {
-            this.hook = hook;
+        private TempCleanup(Runnable action) {
+            this.action = action;
+            this.hook = new Thread(action, "voteworth-cleanup");
         }
 
-        private Runnable action;
-
         static TempCleanup register(Runnable action) {
-            Thread hook = new Thread(action, "voteworth-cleanup");
-            Runtime.getRuntime().addShutdownHook(hook);
-            TempCleanup c = new TempCleanup(hook);
-            c.action = action;
+            TempCleanup c = new TempCleanup(action);
+            Runtime.getRuntime().addShutdownHook(c.hook);
             return c;
         }
 
