@@ -11,6 +11,7 @@ import org.apache.commons.math3.distribution.BetaDistribution;
 import org.voteworth.score.Evidence;
 import org.voteworth.score.Ranking;
 import org.voteworth.tally.TallyTable;
+import org.voteworth.score.MarsagliaTsangGamma;
 
 /**
  * How sure each rank is: seeded Monte Carlo over each ranked unit's true share, drawn from the
@@ -248,7 +249,7 @@ public final class RankUncertainty {
         long[] bits = new long[k];
         for (int i = 0; i < k; i++) {
             // Non-negative doubles order like their bit patterns.
-            bits[i] = Double.doubleToLongBits(BetaDraw.beta(rng, a[i], b[i]) + 0.0);
+            bits[i] = Double.doubleToLongBits(MarsagliaTsangGamma.beta(rng, a[i], b[i]) + 0.0);
         }
         long[] sorted = bits.clone();
         Arrays.sort(sorted);

@@ -15,6 +15,7 @@ import java.util.function.LongConsumer;
 import java.util.regex.Pattern;
 import java.util.zip.Deflater;
 import java.util.zip.GZIPOutputStream;
+import org.voteworth.score.MarsagliaTsangGamma;
 
 /**
  * Writes a review dump of {@value #MARKETPLACE}, a fictional online marketplace: one

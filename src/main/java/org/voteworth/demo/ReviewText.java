@@ -4,6 +4,7 @@ import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.SplittableRandom;
+import org.voteworth.score.MarsagliaTsangGamma;
 
 /**
  * Headlines and bodies for the demo's reviews, from our own small vocabulary and sentence

@@ -2,6 +2,7 @@ package org.voteworth.demo;
 
 import java.util.Arrays;
 import java.util.SplittableRandom;
+import org.voteworth.score.MarsagliaTsangGamma;
 
 /**
  * The crowd behind one chunk of a dump: how many reviews each reviewer writes, their latent

@@ -1,4 +1,4 @@
-package org.voteworth.demo;
+package org.voteworth.score;
 
 import static org.assertj.core.api.Assertions.assertThat;
 

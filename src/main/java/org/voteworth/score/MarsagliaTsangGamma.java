@@ -1,9 +1,10 @@
-package org.voteworth.demo;
+package org.voteworth.score;
 
 import java.util.SplittableRandom;
 
 /**
- * Gamma and beta variates for the demo's latent helpfulness shares.
+ * Gamma, beta and normal variates: primitive and allocation-free, for the demo generator's latent
+ * shares and for rank uncertainty, which draws millions of them.
  *
  * <p>Gamma(shape, 1) by Marsaglia &amp; Tsang (2000), "A simple method for generating gamma
  * variables", ACM Transactions on Mathematical Software 26(3):363-372: with d = a − 1/3,
@@ -14,12 +15,12 @@ import java.util.SplittableRandom;
  *
  * <p>{@link StrictMath} throughout so that a seed gives the same bytes on every JVM.
  */
-final class MarsagliaTsangGamma {
+public final class MarsagliaTsangGamma {
     private MarsagliaTsangGamma() {
     }
 
     /** One Gamma(shape, 1) variate; shape &gt; 0. */
-    static double gamma(SplittableRandom rng, double shape) {
+    public static double gamma(SplittableRandom rng, double shape) {
         if (!(shape > 0)) {
             throw new IllegalArgumentException("gamma shape must be > 0, was " + shape);
         }
@@ -47,14 +48,16 @@ final class MarsagliaTsangGamma {
     }
 
     /** One Beta(a, b) variate; a, b &gt; 0. */
-    static double beta(SplittableRandom rng, double a, double b) {
+    public static double beta(SplittableRandom rng, double a, double b) {
         double x = gamma(rng, a);
         double y = gamma(rng, b);
-        return x / (x + y);
+        double s = x + y;
+        // Both gammas underflow only for tiny shapes; the mean is the honest answer then.
+        return s > 0 ? x / s : a / (a + b);
     }
 
     /** One standard normal variate (polar method). */
-    static double normal(SplittableRandom rng) {
+    public static double normal(SplittableRandom rng) {
         while (true) {
             double u = 2.0 * rng.nextDouble() - 1.0;
             double v = 2.0 * rng.nextDouble() - 1.0;
