@@ -5,8 +5,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.BeforeAll;
@@ -20,24 +18,19 @@ class AnalysisCommandsTest {
     static Path reviewers;
     static Path list;
 
-    record Run(int code, String out, String err) {
-    }
-
-    static Run run(String... args) {
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        int code = Main.run(new PrintWriter(out), new PrintWriter(err), args);
-        return new Run(code, out.toString(), err.toString());
+    /** The command line's exit code and output, as {@link CliTest#run} captures them. */
+    private static CliTest.Run run(String... args) {
+        return CliTest.run(args);
     }
 
     @BeforeAll
     static void tally() throws IOException {
         Path out = dir.resolve("tally");
-        Run r = run("tally", "demo-data", "--out", out.toString(), "--quiet");
+        CliTest.Run r = run("tally", "demo-data", "--out", out.toString(), "--quiet");
         assertThat(r.code()).as(r.err()).isZero();
         reviewers = out.resolve("reviewers.csv");
         // The promotion list: the raw-share top 10 at no bar, plus an id that is not in the data.
-        Run rank = run("rank", reviewers.toString(), "--rule", "raw-share", "--top", "10", "--format", "json", "--quiet");
+        CliTest.Run rank = run("rank", reviewers.toString(), "--rule", "raw-share", "--top", "10", "--format", "json", "--quiet");
         JsonNode j = new ObjectMapper().readTree(rank.out());
         StringBuilder b = new StringBuilder("# promoted by raw share\n");
         j.get("entries").forEach(e -> b.append(e.get("reviewer").asText()).append('\n'));
@@ -49,7 +42,7 @@ class AnalysisCommandsTest {
     @Test
     void everyCommandHasHelp() {
         for (String c : new String[] {"sweep", "compare", "audit"}) {
-            Run r = run(c, "--help");
+            CliTest.Run r = run(c, "--help");
             assertThat(r.code()).isZero();
             assertThat(r.out()).contains("Usage: voteworth " + c, "--format", "--out", "--top", "--rule", "--quiet");
         }
@@ -59,7 +52,7 @@ class AnalysisCommandsTest {
 
     @Test
     void sweepWritesEveryFormat() throws IOException {
-        Run t = run("sweep", reviewers.toString(), "--quiet");
+        CliTest.Run t = run("sweep", reviewers.toString(), "--quiet");
         assertThat(t.code()).as(t.err()).isZero();
         assertThat(t.out()).contains("Threshold artefact: planted-expert", "jaccard_previous");
         assertThat(run("sweep", reviewers.toString(), "--quiet", "--format", "md").out()).startsWith("# Entry-bar sweep")
@@ -77,7 +70,7 @@ class AnalysisCommandsTest {
 
     @Test
     void compareWritesEveryFormat() throws IOException {
-        Run t = run("compare", reviewers.toString(), "--quiet");
+        CliTest.Run t = run("compare", reviewers.toString(), "--quiet");
         assertThat(t.code()).as(t.err()).isZero();
         assertThat(t.out()).contains("kendall_tau_b", "spearman_rho", "rbo", "Large disagreements", "planted-expert: #1 by wilson");
         assertThat(run("compare", reviewers.toString(), "--quiet", "--format", "md").out()).contains("## Large disagreements");
@@ -91,24 +84,24 @@ class AnalysisCommandsTest {
 
     @Test
     void auditReportsMissingIdsAndGatesAPipeline() throws IOException {
-        Run t = run("audit", reviewers.toString(), "--list", list.toString(), "--top-k", "10", "--rule", "wilson", "--quiet");
+        CliTest.Run t = run("audit", reviewers.toString(), "--list", list.toString(), "--top-k", "10", "--rule", "wilson", "--quiet");
         assertThat(t.code()).as(t.err()).isZero();
         assertThat(t.out()).contains("Not in the data", "not-a-reviewer", "small sample", "planted-expert");
-        Run failing = run("audit", reviewers.toString(), "--list", list.toString(), "--top-k", "10", "--rule", "wilson",
+        CliTest.Run failing = run("audit", reviewers.toString(), "--list", list.toString(), "--top-k", "10", "--rule", "wilson",
                 "--quiet", "--fail-if", "expected-below>1", "--format", "json");
         assertThat(failing.code()).isEqualTo(AuditCommand.POLICY_FAILED);
         JsonNode j = new ObjectMapper().readTree(failing.out());
         assertThat(j.get("passed").asBoolean()).isFalse();
         assertThat(j.get("summary").get("missing").asInt()).isEqualTo(1);
         assertThat(j.get("overlooked").toString()).contains("planted-expert");
-        Run passing = run("audit", reviewers.toString(), "--list", list.toString(), "--target-share", "0.8", "--quiet",
+        CliTest.Run passing = run("audit", reviewers.toString(), "--list", list.toString(), "--target-share", "0.8", "--quiet",
                 "--fail-if", "below>0", "--format", "md");
         assertThat(passing.code()).as(passing.out()).isZero();
         assertThat(passing.out()).startsWith("# Audit of");
         assertThat(run("audit", reviewers.toString(), "--list", list.toString(), "--top-k", "10", "--quiet", "--format", "csv")
                 .out()).startsWith("part,reviewer").contains("\nmissing,not-a-reviewer");
         // No bar, or a bad policy: errors for people.
-        Run noBar = run("audit", reviewers.toString(), "--list", list.toString(), "--quiet");
+        CliTest.Run noBar = run("audit", reviewers.toString(), "--list", list.toString(), "--quiet");
         assertThat(noBar.code()).isEqualTo(1);
         assertThat(noBar.err()).contains("--target-share S", "--top-k K");
         assertThat(run("audit", reviewers.toString(), "--list", list.toString(), "--top-k", "5", "--fail-if", "loud>1", "--quiet")
@@ -117,15 +110,15 @@ class AnalysisCommandsTest {
 
     @Test
     void rankAddsUncertaintyColumnsToEveryFormat() throws IOException {
-        Run t = run("rank", reviewers.toString(), "--top", "5", "--uncertainty", "--draws", "500", "--quiet");
+        CliTest.Run t = run("rank", reviewers.toString(), "--top", "5", "--uncertainty", "--draws", "500", "--quiet");
         assertThat(t.code()).as(t.err()).isZero();
         assertThat(t.out()).contains("p_top_5", "rank_low", "rank_high", "pruned");
         assertThat(run("rank", reviewers.toString(), "--top", "5", "--uncertainty", "--format", "csv", "--quiet").out())
                 .contains("p_top_5,p_se,rank_low,rank_median,rank_high");
         assertThat(run("rank", reviewers.toString(), "--top", "5", "--uncertainty", "--format", "md", "--quiet").out())
                 .contains("**rank uncertainty**");
-        Run a = run("rank", reviewers.toString(), "--top", "5", "--uncertainty", "--format", "json", "--threads", "1", "--quiet");
-        Run b = run("rank", reviewers.toString(), "--top", "5", "--uncertainty", "--format", "json", "--threads", "3", "--quiet");
+        CliTest.Run a = run("rank", reviewers.toString(), "--top", "5", "--uncertainty", "--format", "json", "--threads", "1", "--quiet");
+        CliTest.Run b = run("rank", reviewers.toString(), "--top", "5", "--uncertainty", "--format", "json", "--threads", "3", "--quiet");
         JsonNode j = new ObjectMapper().readTree(a.out());
         assertThat(j.get("rank_uncertainty")).hasSize(5);
         assertThat(j.get("uncertainty").get("pruned").asInt()).isPositive();
@@ -134,11 +127,11 @@ class AnalysisCommandsTest {
 
     @Test
     void theVoteCapNeedsTheDumpAndTamesTheViralReviewer() throws IOException {
-        Run onTable = run("rank", reviewers.toString(), "--cap-votes", "50", "--quiet");
+        CliTest.Run onTable = run("rank", reviewers.toString(), "--cap-votes", "50", "--quiet");
         assertThat(onTable.code()).isEqualTo(1);
         assertThat(onTable.err()).contains("--cap-votes needs each review's votes");
         Path out = dir.resolve("capped");
-        Run capped = run("compare", "demo-data", "--cap-votes", "50", "--format", "json", "--quiet", "--out", out.toString());
+        CliTest.Run capped = run("compare", "demo-data", "--cap-votes", "50", "--format", "json", "--quiet", "--out", out.toString());
         assertThat(capped.code()).as(capped.err()).isZero();
         String json = Files.readString(out.resolve("compare.json"));
         assertThat(json).contains("at most 50 votes per review");
