@@ -2,10 +2,10 @@
 # Times `voteworth tally` against what a user would otherwise reach for, in one run, on the same files:
 # DuckDB (JDBC), cut | awk, and a readLine/split/HashMap Java baseline; plus the read-only limits
 # (cat > /dev/null, and decompressing the compressed copies). Checks that every method agrees on rows,
-# reviewer count and vote sums. Usage: bench/tally-benchmark.sh [SIZE ...]   (default: 4GB)
+# reviewer count and vote sums. Usage: src/test/bench/tally-benchmark.sh [SIZE ...]   (default: 4GB)
 # Environment: BENCH_DIR (default: a temp folder, deleted at the end), THREADS (default: nproc).
 set -euo pipefail
-here="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+here="$(cd "$(dirname "${BASH_SOURCE[0]}")/../../.." && pwd)"
 sizes=("$@"); [ ${#sizes[@]} -eq 0 ] && sizes=(4GB)
 threads="${THREADS:-$(nproc)}"
 work="${BENCH_DIR:-$(mktemp -d "${TMPDIR:-/tmp}/voteworth-bench.XXXXXX")}"
