@@ -166,13 +166,18 @@ public final class Ranking {
      * the ranks under each rule; who is overlooked; ids not in the data.
      */
     public Report<AuditResult> audit(List<String> promoted, int k) {
+        return audit(promoted, k, RankUncertainty.DEFAULT_DRAWS);
+    }
+
+    /** As {@link #audit(List, int)} with {@code draws} Monte Carlo draws (fewer for a quick look; at least 10). */
+    public Report<AuditResult> audit(List<String> promoted, int k, int draws) {
         PromotionList list = PromotionList.of("list of " + promoted.size() + " ids", promoted);
         PromotionAudit.Settings s = new PromotionAudit.Settings(fit.prior(), ranking, k, compared(),
-                RankUncertainty.Settings.defaults(Math.max(1, k), SEED), BEAT_PROBABILITY, rule.confidence(),
+                RankUncertainty.Settings.defaults(Math.max(1, k), SEED).withDraws(draws), BEAT_PROBABILITY, rule.confidence(),
                 Explainer.DEFAULT_CONCENTRATION_LIMIT);
         AuditResult r = PromotionAudit.run(list, new PromotionAudit.TopK(k, rule.name()), s, table.ids());
         Map<String, String> p = parameters();
-        p.put("monte carlo", RankUncertainty.DEFAULT_DRAWS + " draws, seed " + SEED);
+        p.put("monte carlo", draws + " draws, seed " + SEED);
         return Report.markdown(r, AuditWriter.write(r, OutputFormat.MD, p, List.of()),
                 AuditWriter.write(r, OutputFormat.TABLE, p, List.of()));
     }

@@ -257,7 +257,7 @@ public final class ReviewerTable {
         String rows = summary.files().isEmpty() ? "read back from " + source
                 : String.format(Locale.ROOT, "%,d rows read, %,d accepted, %,d rejected (read = accepted + rejected %s)",
                         summary.rowsRead(), summary.accepted(), summary.rejected(), summary.reconciles() ? "holds" : "DOES NOT HOLD");
-        return String.format(Locale.ROOT, "ReviewerTable: %,d reviewers in %d categories; %s", table.size(),
+        return String.format(Locale.ROOT, "ReviewerTable of %s: %,d reviewers in %d categories; %s", source, table.size(),
                 table.categories().size(), rows);
     }
 }
