@@ -41,6 +41,8 @@ class NotebooksTest {
                 // The committed notebook shows a whole run: every code cell numbered in order.
                 int count = 0;
                 for (JsonNode cell : committed.get("cells")) {
+                    // nbformat 4.5 gives every cell an id.
+                    assertThat(cell.path("id").asText()).as(p.getFileName() + ": a cell without an id").isNotEmpty();
                     if ("code".equals(cell.path("cell_type").asText())) {
                         count++;
                         assertThat(cell.path("execution_count").asInt())
