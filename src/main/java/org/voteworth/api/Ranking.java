@@ -96,8 +96,10 @@ public final class Ranking {
         if (k < 1) {
             throw new IllegalArgumentException("the top k must be at least 1, not " + k);
         }
-        RankingReport r = RankingReport.explain(ranking, compared(), fit, rule.confidence(),
-                Explainer.DEFAULT_CONCENTRATION_LIMIT, k, table.ids(), input());
+        Map<String, String> p = RankingReport.parameters(ranking, fit, rule.confidence());
+        p.putAll(input());
+        RankingReport r = RankingReport.explain(ranking, compared(), fit, Explainer.DEFAULT_CONCENTRATION_LIMIT, k,
+                table.ids(), p);
         return Report.markdown(r, RankingWriter.write(r, OutputFormat.MD, true), RankingWriter.write(r, OutputFormat.TABLE, false));
     }
 

@@ -22,7 +22,7 @@ final class AnalysisInput {
         java.util.Map<String, String> p = new java.util.LinkedHashMap<>();
         p.put("input", String.join(" ", d.inputs) + " (" + table.size() + (table.unit() == TallyUnit.REVIEW ? " reviews)" : " reviewers)"));
         p.put("confidence", Double.toString(s.confidence));
-        p.put("prior", fit.describe());
+        p.put("prior", RankRun.describe(fit));
         p.put("vote cap", s.capVotes == 0 ? "none" : "at most " + s.capVotes + " votes per review, helpful scaled in proportion");
         p.put("tie order", "higher score, then more total votes, then reviewer id");
         return p;

@@ -223,7 +223,7 @@ final class DemoCommand implements Callable<Integer> {
         return String.format(Locale.ROOT, "voteworth demo: %,d reviews read, %,d accepted, %,d rejected (read = accepted + rejected %s), "
                         + "%,d reviewers, %.1f s (%s)%nprior: %s%n%n%s%n%s", t.summary().rowsRead(), t.summary().accepted(),
                 t.summary().rejected(), t.summary().reconciles() ? "holds" : "DOES NOT HOLD", t.table().size(), t.seconds(),
-                t.throughput(), fit.describe(), side, findings(all, ids));
+                t.throughput(), RankRun.describe(fit), side, findings(all, ids));
     }
 
     private String summary(TallyRun.Result t, PriorFit fit, List<Ranking> all, String side, UnaryOperator<String> ids) {
@@ -235,7 +235,7 @@ final class DemoCommand implements Callable<Integer> {
         b.append("## The three lists side by side (helpful/total votes)\n\n").append(side).append('\n');
         b.append("## What the lists rest on\n\n").append(findings(all, ids)).append('\n');
         b.append("## Parameters\n\n");
-        b.append("- prior: ").append(fit.describe()).append('\n');
+        b.append("- prior: ").append(RankRun.describe(fit)).append('\n');
         b.append("- confidence: 0.95; tie order: higher score, then more total votes, then reviewer id\n");
         for (Ranking r : all) {
             b.append("- ").append(r.rule().name()).append(": ").append(r.rule().describe()).append(" Entry bar: ")

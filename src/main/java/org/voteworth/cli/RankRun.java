@@ -1,6 +1,7 @@
 package org.voteworth.cli;
 
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.function.UnaryOperator;
@@ -71,6 +72,16 @@ final class RankRun {
 
     /** The explained top k of {@code ranking}, with the ranks under every compared rule beside. */
     RankingReport report(Ranking ranking, int k, UnaryOperator<String> ids, Map<String, String> extra) {
-        return RankingReport.explain(ranking, compared, fit, settings.confidence(), concentrationLimit, k, ids, extra);
+        Map<String, String> p = new LinkedHashMap<>(parameters(ranking));
+        p.putAll(extra);
+        return RankingReport.explain(ranking, compared, fit, concentrationLimit, k, ids, p);
+    }
+
+    Map<String, String> parameters(Ranking ranking) {
+        return RankingReport.parameters(ranking, fit, settings.confidence());
+    }
+
+    static String describe(PriorFit f) {
+        return f.describe();
     }
 }

@@ -32,20 +32,23 @@ public record RankingReport(String title, Ranking ranking, List<Ranking> compare
 
     /**
      * The explained top {@code k} of {@code ranking}, with the ranks under every compared rule
-     * beside, titled and with the parameters that reproduce it ({@code extra} appended).
+     * beside, titled, with {@code parameters} (see {@link #parameters}) to reproduce it.
      *
      * @param compared the rankings whose ranks are shown beside ({@code ranking} may be among them)
-     * @param fit the prior of the Bayesian rules, for the explanations and the parameters
-     * @param confidence the confidence the rules were built with
+     * @param fit the prior of the Bayesian rules, for the explanations
      * @param concentrationLimit share of the votes above which one review is flagged as carrying them
      * @param ids how ids appear (e.g. a keyed pseudonym)
      */
-    public static RankingReport explain(Ranking ranking, List<Ranking> compared, PriorFit fit, double confidence,
-                                        double concentrationLimit, int k, UnaryOperator<String> ids,
-                                        Map<String, String> extra) {
+    public static RankingReport explain(Ranking ranking, List<Ranking> compared, PriorFit fit, double concentrationLimit,
+                                        int k, UnaryOperator<String> ids, Map<String, String> parameters) {
         Explainer ex = new Explainer(ranking, compared, Optional.of(fit.prior()), concentrationLimit).withIds(ids);
         String title = "Top " + Math.min(k, ranking.size()) + " by " + ranking.rule().label()
                 + (ranking.bar().minimum() > 0 ? ", " + ranking.bar().describe() : "");
+        return new RankingReport(title, ranking, compared, ex.explainTop(k), parameters);
+    }
+
+    /** What a ranking report states to be reproduced: rule, entry bar, how many ranked, confidence, prior, tie order. */
+    public static Map<String, String> parameters(Ranking ranking, PriorFit fit, double confidence) {
         Map<String, String> p = new LinkedHashMap<>();
         p.put("rule", ranking.rule().label() + ": " + ranking.rule().describe());
         p.put("entry bar", ranking.bar().describe());
@@ -55,7 +58,6 @@ public record RankingReport(String title, Ranking ranking, List<Ranking> compare
         p.put("confidence", Double.toString(confidence));
         p.put("prior", fit.describe());
         p.put("tie order", "higher score, then more total votes, then reviewer id");
-        p.putAll(extra);
-        return new RankingReport(title, ranking, compared, ex.explainTop(k), p);
+        return p;
     }
 }
