@@ -23,6 +23,7 @@ import org.voteworth.source.ReviewSink;
 import org.voteworth.source.ScanSummary;
 import org.voteworth.source.SourceOptions;
 import org.voteworth.tally.BoundedTally;
+import org.voteworth.tally.ReviewerTableFile;
 import org.voteworth.tally.TallyUnit;
 import org.voteworth.tally.VoteCap;
 
@@ -162,6 +163,11 @@ public final class Dump {
      * @throws org.voteworth.source.DumpFormatException when a file's header or reject rate is wrong, naming the file
      */
     public ReviewerTable tally() throws IOException {
+        if (inputs.size() == 1 && Files.isRegularFile(Path.of(inputs.get(0)))
+                && ReviewerTableFile.looksLikeReviewerTable(Path.of(inputs.get(0)))) {
+            throw new IllegalArgumentException(inputs.get(0) + " is a reviewer table (votes already summed per reviewer), "
+                    + "not a dump: read it with ReviewerTable.read(Path.of(\"" + inputs.get(0) + "\"))");
+        }
         List<DumpFile> files = DumpFinder.find(inputs, source.categories());
         Path tmp = Path.of(System.getProperty("java.io.tmpdir"));
         Path rejectsFile = rejects.isPresent() ? rejects.get() : Files.createTempFile("voteworth-rejects-", ".tsv");

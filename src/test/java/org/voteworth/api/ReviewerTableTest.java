@@ -36,6 +36,8 @@ class ReviewerTableTest {
         assertThat(back.tallyTable().toSortedList()).isEqualTo(demo.tallyTable().toSortedList());
         assertThat(back.reconciliation()).contains("no rows to reconcile");
         assertThat(back.rank(Rule.wilson()).topIds(5)).isEqualTo(demo.rank(Rule.wilson()).topIds(5));
+        assertThatThrownBy(() -> Dump.open(dir.resolve("reviewers.csv")).tally()).hasMessageContaining("is a reviewer table")
+                .hasMessageContaining("ReviewerTable.read");
     }
 
     @Test
