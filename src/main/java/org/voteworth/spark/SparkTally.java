@@ -124,6 +124,10 @@ public final class SparkTally {
             b.master("local[*]");
         }
         SparkSession spark = b.getOrCreate();
+        if (System.getProperty("spark.master") == null) {
+            // Outside spark-submit nobody chose a logging setup: progress INFO lines would bury the reconciliation.
+            spark.sparkContext().setLogLevel("WARN");
+        }
         try {
             return run(spark, request);
         } finally {
@@ -154,9 +158,10 @@ public final class SparkTally {
                         .repartitionByRange(parts, col("reviewer_id")).sortWithinPartitions("reviewer_id")
                         .mapPartitions(new TallyMerge(), Encoders.row(TallyRows.SCHEMA))
                         .persist(StorageLevel.MEMORY_AND_DISK());
+                // Counting first fills the cache, so the writes and the frequency table below read the merged tallies from it.
+                long reviewers = merged.count();
                 merged.select(TallyRows.storeColumns()).write().mode(SaveMode.Overwrite).option("compression", "zstd")
                         .parquet(store.uri(REVIEWERS));
-                long reviewers = merged.count();
                 VoteFrequencyTable frequencies = frequencies(merged, request.fitFloor());
                 Optional<PriorFit> prior = frequencies.units() == 0 ? Optional.empty()
                         : Optional.of(EmpiricalBayesPrior.fit(frequencies));

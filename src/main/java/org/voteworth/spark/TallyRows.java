@@ -85,22 +85,21 @@ final class TallyRows {
 
     /** The store's reviewers.parquet columns from a frame of {@link #SCHEMA}. */
     static Column[] storeColumns() {
-        List<Column> c = new ArrayList<>();
-        c.add(functions.col("reviewer_id"));
-        COUNTERS.forEach(n -> c.add(functions.col(n)));
-        c.add(functions.expr("date_from_unix_date(first_day)").as("first_date"));
-        c.add(functions.expr("date_from_unix_date(last_day)").as("last_date"));
-        c.add(functions.col("categories"));
-        return c.toArray(Column[]::new);
+        return columns("date_from_unix_date(first_day)", "first_date", "date_from_unix_date(last_day)", "last_date");
     }
 
     /** {@link #SCHEMA}'s columns from the store's reviewers.parquet (the inverse of {@link #storeColumns()}). */
     static Column[] fromStoreColumns() {
+        return columns("unix_date(first_date)", "first_day", "unix_date(last_date)", "last_day");
+    }
+
+    /** The id, the counters, the two date columns as given, and the categories. */
+    private static Column[] columns(String first, String firstName, String last, String lastName) {
         List<Column> c = new ArrayList<>();
         c.add(functions.col("reviewer_id"));
         COUNTERS.forEach(n -> c.add(functions.col(n)));
-        c.add(functions.expr("unix_date(first_date)").as("first_day"));
-        c.add(functions.expr("unix_date(last_date)").as("last_day"));
+        c.add(functions.expr(first).as(firstName));
+        c.add(functions.expr(last).as(lastName));
         c.add(functions.col("categories"));
         return c.toArray(Column[]::new);
     }

@@ -4,8 +4,6 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.io.IOException;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.sql.Connection;
@@ -24,7 +22,8 @@ import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import org.voteworth.cli.Main;
+import org.voteworth.cli.CliTest;
+import org.voteworth.cli.CliTest.Run;
 import org.voteworth.score.EmpiricalBayesPrior;
 import org.voteworth.score.VoteFrequencyTable;
 import org.voteworth.source.DumpFormatException;
@@ -51,16 +50,6 @@ class SparkTallyTest {
     static SparkTally.Result result;
     static List<ReviewerTally> written;
 
-    record Run(int code, String out, String err) {
-    }
-
-    static Run run(String... args) {
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        int code = Main.run(new PrintWriter(out), new PrintWriter(err), args);
-        return new Run(code, out.toString(), err.toString());
-    }
-
     @BeforeAll
     static void tallyOnBothEngines() throws IOException {
         spark = SparkSession.builder().master("local[2]").appName("voteworth-spark-test")
@@ -70,7 +59,7 @@ class SparkTallyTest {
                 .config("spark.sql.shuffle.partitions", "4")
                 .getOrCreate();
         local = dir.resolve("local");
-        Run r = run("tally", DEMO.toString(), "--out", local.toString(), "--quiet", "--threads", "2");
+        Run r = CliTest.run("tally", DEMO.toString(), "--out", local.toString(), "--quiet", "--threads", "2");
         assertThat(r.code()).as(r.err()).isZero();
         store = dir.resolve("store");
         result = SparkTally.run(spark, new SparkTally.Request(List.of(DEMO.toString()), SourceOptions.defaults(),
@@ -113,8 +102,8 @@ class SparkTallyTest {
     @Test
     void rankPrintsTheSameRankingOnBothOutputs() {
         // bayes-mean fits the prior on each table, and the compared ranks cover raw-share and wilson.
-        Run a = run("rank", local.resolve("reviewers.csv").toString(), "--rule", "bayes-mean", "--top", "25", "--quiet");
-        Run b = run("rank", store.resolve("reviewers.csv").toString(), "--rule", "bayes-mean", "--top", "25", "--quiet");
+        Run a = CliTest.run("rank", local.resolve("reviewers.csv").toString(), "--rule", "bayes-mean", "--top", "25", "--quiet");
+        Run b = CliTest.run("rank", store.resolve("reviewers.csv").toString(), "--rule", "bayes-mean", "--top", "25", "--quiet");
         assertThat(a.code()).as(a.err()).isZero();
         assertThat(b.code()).as(b.err()).isZero();
         assertThat(a.out()).contains("planted-expert");
@@ -173,7 +162,7 @@ class SparkTallyTest {
     @Test
     void theCommandLineRunsTheJobAndPrintsThePrior() throws IOException {
         Path cli = dir.resolve("cli-store");
-        Run r = run("spark-tally", DEMO.resolve("books.tsv.gz").toString(), "--out", cli.toString(), "--partitions", "2",
+        Run r = CliTest.run("spark-tally", DEMO.resolve("books.tsv.gz").toString(), "--out", cli.toString(), "--partitions", "2",
                 "--reviewer-csv", "--csv-min-votes", "20");
         assertThat(r.code()).as(r.err()).isZero();
         assertThat(r.out()).contains("read = accepted + rejected").contains("prior: Beta(").contains("--prior ");
@@ -191,16 +180,18 @@ class SparkTallyTest {
     void aFileWithTooManyRejectsStopsTheJobWithTheLocalMessage() throws IOException {
         Path bad = dir.resolve("bad");
         Files.createDirectories(bad);
-        StringBuilder b = new StringBuilder("reviewer_id,helpful_votes,total_votes\n");
+        // A tab-separated header over comma-separated rows: every row is short of fields.
+        StringBuilder b = new StringBuilder("reviewer_id\thelpful_votes\ttotal_votes\n");
         for (int i = 0; i < 50; i++) {
             b.append("r").append(i).append(",1,2\n");
         }
         Files.writeString(bad.resolve("commas.tsv"), b);
-        Run localRun = run("tally", bad.toString(), "--out", dir.resolve("bad-local").toString(), "--quiet");
+        Run localRun = CliTest.run("tally", bad.toString(), "--out", dir.resolve("bad-local").toString(), "--quiet");
         assertThat(localRun.code()).isEqualTo(1);
         assertThatThrownBy(() -> SparkTally.run(spark, new SparkTally.Request(List.of(bad.toString()),
                 SourceOptions.defaults(), dir.resolve("bad-store").toString(), 1, false, 0, 1)))
                 .isInstanceOf(DumpFormatException.class)
+                .satisfies(e -> assertThat(e.getMessage()).contains("commas.tsv").contains("--csv"))
                 .satisfies(e -> assertThat(localRun.err()).contains(e.getMessage()));
     }
 
