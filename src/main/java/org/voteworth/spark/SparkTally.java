@@ -13,6 +13,8 @@ import java.util.List;
 import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
+import java.util.SortedMap;
+import java.util.TreeMap;
 import org.apache.hadoop.conf.Configuration;
 import org.apache.spark.api.java.JavaSparkContext;
 import org.apache.spark.broadcast.Broadcast;
@@ -151,8 +153,8 @@ public final class SparkTally {
                     UnitScan.SCHEMA).persist(StorageLevel.MEMORY_AND_DISK());
             Dataset<Row> merged = null;
             try {
-                String[] fingerprints = new String[units.size()];
-                ScanSummary summary = summary(scanned, units, fingerprints);
+                Reports reports = reports(scanned, units);
+                ScanSummary summary = reports.summary();
                 writeRejects(scanned, units, store);
                 merged = scanned.filter(col("kind").equalTo(UnitScan.TALLY)).select("tally.*")
                         .repartitionByRange(parts, col("reviewer_id")).sortWithinPartitions("reviewer_id")
@@ -171,7 +173,7 @@ public final class SparkTally {
                 }
                 Files.writeString(store.staged("reconciliation.txt"), summary.describe());
                 store.publish("reconciliation.txt");
-                Files.writeString(store.staged(MANIFEST), manifest(settings, units, fingerprints, summary, reviewers));
+                Files.writeString(store.staged(MANIFEST), manifest(settings, units, reports, reviewers));
                 store.publish(MANIFEST);
                 return new Result(summary, reviewers, frequencies, prior, store.dir(), (System.nanoTime() - start) / 1e9);
             } catch (Exception e) {
@@ -186,10 +188,21 @@ public final class SparkTally {
         }
     }
 
-    /** The reconciliation, and each file's fingerprint, from the one report row each file's task emits. */
-    private static ScanSummary summary(Dataset<Row> scanned, List<DumpUnit> units, String[] fingerprints) {
+    /**
+     * What the one report row of each file's task says, gathered in file order.
+     *
+     * @param summary the reconciliation
+     * @param fingerprints each file's head-and-tail SHA-256
+     * @param categories per category over all files: reviews, then stars 1 to 5
+     */
+    private record Reports(ScanSummary summary, List<String> fingerprints, SortedMap<String, long[]> categories) {
+    }
+
+    private static Reports reports(Dataset<Row> scanned, List<DumpUnit> units) {
         List<Row> rows = scanned.filter(col("kind").equalTo(UnitScan.REPORT)).select("unit", "report").collectAsList();
         FileReport[] reports = new FileReport[units.size()];
+        String[] fingerprints = new String[units.size()];
+        SortedMap<String, long[]> categories = new TreeMap<>();
         for (Row r : rows) {
             int u = r.getInt(0);
             Row p = r.getStruct(1);
@@ -199,8 +212,16 @@ public final class SparkTally {
             }
             reports[u] = new FileReport(units.get(u).file(), p.getLong(0), p.getLong(1), p.getLong(2), reasons, p.getBoolean(4));
             fingerprints[u] = p.getString(5);
+            for (Row c : p.<Row>getList(6)) {
+                long[] n = categories.computeIfAbsent(c.getString(0), k -> new long[6]);
+                n[0] += c.getLong(1);
+                List<Long> stars = c.getList(2);
+                for (int s = 1; s <= 5; s++) {
+                    n[s] += stars.get(s - 1);
+                }
+            }
         }
-        return new ScanSummary(List.of(reports));
+        return new Reports(new ScanSummary(List.of(reports)), List.of(fingerprints), categories);
     }
 
     /** The rejects file, streamed to the driver in file and line order (one task reads the cached rows in order). */
@@ -277,8 +298,8 @@ public final class SparkTally {
         store.publish("reviewers.csv");
     }
 
-    private static String manifest(ReadSettings settings, List<DumpUnit> units, String[] fingerprints, ScanSummary summary,
-                                   long reviewers) {
+    private static String manifest(ReadSettings settings, List<DumpUnit> units, Reports reports, long reviewers) {
+        ScanSummary summary = reports.summary();
         return Json.object(j -> {
             j.field("format", "voteworth-store");
             j.field("version", 1);
@@ -295,11 +316,12 @@ public final class SparkTally {
                 f.field("path", u.name());
                 f.field("size", u.sizeBytes());
                 f.field("modified", Instant.ofEpochMilli(u.modified()).toString());
-                f.field("sha256HeadTail", fingerprints[i]);
+                f.field("sha256HeadTail", reports.fingerprints().get(i));
                 f.field("rowsRead", r.rowsRead());
                 f.field("accepted", r.accepted());
                 f.field("rejected", r.rejected());
                 f.field("category", u.category());
+                f.map("rejectsByReason", r.rejectsByReason());
             });
             j.object("rows", r -> {
                 r.field("read", summary.rowsRead());
@@ -309,6 +331,16 @@ public final class SparkTally {
             j.field("reviewers", reviewers);
             j.field("reviewParts", 0);
             j.field("partitioning", "reviewer-hash-v1 mod 0");
+            j.object("categories", all -> reports.categories().forEach((name, n) -> all.object(name, c -> {
+                c.field("reviews", n[0]);
+                c.stream(g -> {
+                    g.writeArrayFieldStart("stars");
+                    for (int s = 1; s <= 5; s++) {
+                        g.writeNumber(n[s]);
+                    }
+                    g.writeEndArray();
+                });
+            })));
         });
     }
 

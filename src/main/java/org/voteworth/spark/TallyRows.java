@@ -66,7 +66,7 @@ final class TallyRows {
         v[LAST_DAY] = t.lastDay() == ReviewerTally.NO_DATE ? null : t.lastDay();
         List<Row> cats = new ArrayList<>(t.reviewsByCategory().size());
         t.reviewsByCategory().forEach((c, n) -> cats.add(RowFactory.create(c, n)));
-        v[CATEGORIES] = scala.jdk.javaapi.CollectionConverters.asScala(cats).toSeq();
+        v[CATEGORIES] = UnitScan.seq(cats);
         return RowFactory.create(v);
     }
 

@@ -30,7 +30,8 @@ import org.voteworth.tally.TallyTable;
  * The task of the cluster job: scans whole dump files with the project's own
  * {@link DumpScanner} (header mapping, row parser, validation, reject reasons and the per-file
  * reject limit exactly as {@code voteworth tally} applies them) into a {@link TallyTable}, and
- * emits, per file, one report row, its rejects in line order, then its partial tallies.
+ * emits, per file, one report row (counts, fingerprint, reviews and stars per category), its
+ * rejects in line order, then its partial tallies.
  *
  * <p>A file is one unit: compressed files cannot be split anyway, and a whole file keeps every
  * line number exact and the reject limit checked on the file as a whole.
@@ -54,13 +55,18 @@ final class UnitScan implements FlatMapFunction<Iterator<DumpUnit>, Row> {
         DataTypes.createStructField("value", DataTypes.StringType, false),
         DataTypes.createStructField("message", DataTypes.StringType, false),
         DataTypes.createStructField("row", DataTypes.BinaryType, false)});
+    private static final StructType CATEGORY_COUNT = new StructType(new StructField[] {
+        DataTypes.createStructField("category", DataTypes.StringType, false),
+        DataTypes.createStructField("reviews", DataTypes.LongType, false),
+        DataTypes.createStructField("stars", DataTypes.createArrayType(DataTypes.LongType, false), false)});
     static final StructType REPORT_SCHEMA = new StructType(new StructField[] {
         DataTypes.createStructField("rows_read", DataTypes.LongType, false),
         DataTypes.createStructField("accepted", DataTypes.LongType, false),
         DataTypes.createStructField("rejected", DataTypes.LongType, false),
         DataTypes.createStructField("reasons", DataTypes.createArrayType(COUNT, false), false),
         DataTypes.createStructField("no_header", DataTypes.BooleanType, false),
-        DataTypes.createStructField("sha256_head_tail", DataTypes.StringType, false)});
+        DataTypes.createStructField("sha256_head_tail", DataTypes.StringType, false),
+        DataTypes.createStructField("categories", DataTypes.createArrayType(CATEGORY_COUNT, false), false)});
     /** One output row: its kind, the file's index, and the part that kind fills. */
     static final StructType SCHEMA = new StructType(new StructField[] {
         DataTypes.createStructField("kind", DataTypes.IntegerType, false),
@@ -109,16 +115,22 @@ final class UnitScan implements FlatMapFunction<Iterator<DumpUnit>, Row> {
             TallyTable table = new TallyTable();
             List<Row> head = new ArrayList<>();
             head.add(null);
-            FileReport r = scanner.scan(u.file(), fs.open(path), table, (file, line, reject, row, s, e) ->
+            CategoryCounts categories = new CategoryCounts(table);
+            FileReport r = scanner.scan(u.file(), fs.open(path), categories, (file, line, reject, row, s, e) ->
                     head.add(RowFactory.create(REJECT, u.index(), null, RowFactory.create(line, reject.field(),
                             reject.reason(), reject.value(), reject.message(), Arrays.copyOfRange(row, s, e)), null)));
             List<Row> reasons = new ArrayList<>();
             for (Map.Entry<String, Long> e : r.rejectsByReason().entrySet()) {
                 reasons.add(RowFactory.create(e.getKey(), e.getValue()));
             }
+            List<Row> byCategory = new ArrayList<>();
+            for (int c = 0; c < categories.size(); c++) {
+                long[] n = categories.counts(c);
+                List<Long> stars = List.of(n[1], n[2], n[3], n[4], n[5]);
+                byCategory.add(RowFactory.create(categories.name(c), n[0], seq(stars)));
+            }
             head.set(0, RowFactory.create(REPORT, u.index(), null, null, RowFactory.create(r.rowsRead(), r.accepted(),
-                    r.rejected(), scala.jdk.javaapi.CollectionConverters.asScala(reasons).toSeq(), r.noHeader(),
-                    headTail(fs, path, u))));
+                    r.rejected(), seq(reasons), r.noHeader(), headTail(fs, path, u), seq(byCategory))));
             Iterator<Row> first = head.iterator();
             return new Iterator<>() {
                 private int slot;
@@ -142,6 +154,11 @@ final class UnitScan implements FlatMapFunction<Iterator<DumpUnit>, Row> {
         } catch (IOException e) {
             throw new java.io.UncheckedIOException(u.name() + ": " + e.getMessage(), e);
         }
+    }
+
+    /** A Java list as the Scala sequence Spark's rows take for an array column. */
+    static <T> scala.collection.Seq<T> seq(List<T> list) {
+        return scala.jdk.javaapi.CollectionConverters.asScala(list).toSeq();
     }
 
     /**

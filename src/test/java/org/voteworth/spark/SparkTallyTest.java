@@ -123,6 +123,40 @@ class SparkTallyTest {
     }
 
     @Test
+    void manifestCountsAgreeWithTheLocalTable() throws IOException {
+        com.fasterxml.jackson.databind.JsonNode m = new com.fasterxml.jackson.databind.ObjectMapper()
+                .readTree(store.resolve(SparkTally.MANIFEST).toFile());
+        assertThat(m.get("format").asText()).isEqualTo("voteworth-store");
+        assertThat(m.get("version").asInt()).isEqualTo(1);
+        assertThat(m.get("rows").get("read").asLong()).isEqualTo(40_003);
+        assertThat(m.get("reviewers").asLong()).isEqualTo(written.size());
+        assertThat(m.get("files")).hasSize(12);
+        for (com.fasterxml.jackson.databind.JsonNode f : m.get("files")) {
+            long byReason = 0;
+            for (com.fasterxml.jackson.databind.JsonNode n : f.get("rejectsByReason")) {
+                byReason += n.asLong();
+            }
+            assertThat(byReason).as(f.get("path").asText()).isEqualTo(f.get("rejected").asLong());
+            assertThat(f.get("sha256HeadTail").asText()).hasSize(64);
+        }
+        // Reviews per category from the rows as the tasks counted them, against the local reviewer table's.
+        Map<String, Long> expected = new java.util.TreeMap<>();
+        ReviewerTableFile.read(local.resolve("reviewers.csv")).toSortedList()
+                .forEach(t -> t.reviewsByCategory().forEach((c, n) -> expected.merge(c, n, Long::sum)));
+        Map<String, Long> manifest = new java.util.TreeMap<>();
+        m.get("categories").fields().forEachRemaining(e -> {
+            manifest.put(e.getKey(), e.getValue().get("reviews").asLong());
+            long rated = 0;
+            for (com.fasterxml.jackson.databind.JsonNode n : e.getValue().get("stars")) {
+                rated += n.asLong();
+            }
+            assertThat(rated).as(e.getKey()).isLessThanOrEqualTo(e.getValue().get("reviews").asLong());
+        });
+        assertThat(manifest).isEqualTo(expected);
+        assertThat(manifest.values().stream().mapToLong(Long::longValue).sum()).isEqualTo(39_974);
+    }
+
+    @Test
     void anotherParquetReaderSeesTheStoreLayout() throws SQLException {
         String files = store.resolve(SparkTally.REVIEWERS).resolve("*.parquet").toString().replace("'", "''");
         try (Connection c = DriverManager.getConnection("jdbc:duckdb:"); Statement s = c.createStatement()) {
