@@ -62,6 +62,9 @@ import static org.apache.spark.sql.functions.col;
 public final class SparkTally {
     static final String REVIEWERS = "reviewers.parquet";
     static final String MANIFEST = "manifest.json";
+    /** A task's error as Spark's job failure quotes it: its class, then its message up to the stack trace. */
+    private static final java.util.regex.Pattern TASK_ERROR = java.util.regex.Pattern.compile(
+            "(?s)(org\\.voteworth\\.source\\.DumpFormatException|java\\.io\\.UncheckedIOException): (.*?)\\R\\s+at ");
 
     private SparkTally() {
     }
@@ -170,6 +173,8 @@ public final class SparkTally {
                 writeFrequencies(frequencies, store);
                 if (request.reviewerCsv()) {
                     writeCsv(merged, request.csvMinVotes(), store);
+                } else {
+                    store.remove("reviewers.csv");
                 }
                 Files.writeString(store.staged("reconciliation.txt"), summary.describe());
                 store.publish("reconciliation.txt");
@@ -378,7 +383,4 @@ public final class SparkTally {
         }
         return new DumpFormatException("(spark task)", 0, message, e);
     }
-
-    private static final java.util.regex.Pattern TASK_ERROR = java.util.regex.Pattern.compile(
-            "(?s)(org\\.voteworth\\.source\\.DumpFormatException|java\\.io\\.UncheckedIOException): (.*?)\\R\\s+at ");
 }

@@ -144,7 +144,7 @@ class SparkTallyTest {
         ReviewerTableFile.read(local.resolve("reviewers.csv")).toSortedList()
                 .forEach(t -> t.reviewsByCategory().forEach((c, n) -> expected.merge(c, n, Long::sum)));
         Map<String, Long> manifest = new java.util.TreeMap<>();
-        m.get("categories").fields().forEachRemaining(e -> {
+        m.get("categories").properties().forEach(e -> {
             manifest.put(e.getKey(), e.getValue().get("reviews").asLong());
             long rated = 0;
             for (com.fasterxml.jackson.databind.JsonNode n : e.getValue().get("stars")) {
