@@ -228,8 +228,7 @@ final class TallyRun {
             Files.createDirectories(rejectsFile.toAbsolutePath().getParent());
         }
         ParallelDumpReader reader = new ParallelDumpReader(options, o.threads()).withTempDir(tmp);
-        ProgressListener progress = quiet ? ProgressListener.NONE
-                : new Progress(err, start, System.console() != null);
+        ProgressListener progress = quiet ? ProgressListener.NONE : new Progress(err, start, Progress.stderrIsTerminal());
         try (RejectLog rejects = new RejectLog(rejectsFile)) {
             List<OverviewCounts> perWorker = new java.util.concurrent.CopyOnWriteArrayList<>();
             ScanSummary s = reader.read(files, w -> {
@@ -355,6 +354,15 @@ final class TallyRun {
                 err.flush();
                 drawn = false;
             }
+        }
+
+        /**
+         * Whether stderr is a terminal: as the launcher found it (system property
+         * {@code voteworth.stderr}, {@code terminal} or {@code plain}), else whether the JVM has a console.
+         */
+        static boolean stderrIsTerminal() {
+            String told = System.getProperty("voteworth.stderr");
+            return told != null ? told.equals("terminal") : System.console() != null;
         }
 
         static String mb(long b) {
