@@ -43,7 +43,11 @@ final class ReportOptions {
             stdout.print(text);
         } else {
             Path file = out.resolve(name + "." + f.extension());
-            Files.writeString(file, text);
+            // Written aside and renamed: a run stopped while writing leaves no file that looks complete.
+            Path partial = out.resolve("." + name + "." + f.extension() + ".partial");
+            Files.writeString(partial, text);
+            Files.move(partial, file, java.nio.file.StandardCopyOption.REPLACE_EXISTING,
+                    java.nio.file.StandardCopyOption.ATOMIC_MOVE);
             stdout.println("wrote " + file);
         }
         stdout.flush();

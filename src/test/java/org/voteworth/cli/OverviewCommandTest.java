@@ -5,7 +5,9 @@ import static org.assertj.core.api.Assertions.within;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.github.luben.zstd.ZstdOutputStream;
 import java.io.IOException;
+import java.io.OutputStream;
 import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;
@@ -16,8 +18,11 @@ import java.sql.ResultSet;
 import java.sql.SQLException;
 import java.sql.Statement;
 import java.util.HashMap;
+import java.util.List;
 import java.util.Map;
 import java.util.Random;
+import java.util.zip.GZIPOutputStream;
+import org.apache.commons.compress.compressors.bzip2.BZip2CompressorOutputStream;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -189,6 +194,36 @@ class OverviewCommandTest {
         assertThat(csv.out()).contains("overview.csv");
         assertThat(Files.readString(dir.resolve("o").resolve("overview.csv"))).startsWith("category,measure,value\n")
                 .contains("(all),rows,8600\n");
+    }
+
+    @Test
+    void compressedCopiesOfTheSameFilesGiveTheSameOverview() throws IOException {
+        // The same files as .gz, .zst and .bz2 (written by the JDK, zstd-jni and Commons Compress): the same counts.
+        Path mixed = Files.createDirectories(dir.resolve("mixed"));
+        List<Path> files;
+        try (var s = Files.list(dump)) {
+            files = s.filter(p -> p.toString().endsWith(".tsv")).sorted().toList();
+        }
+        String[] kinds = {"gz", "zst", "bz2", ""};
+        for (int i = 0; i < files.size(); i++) {
+            String kind = kinds[i % kinds.length];
+            Path target = mixed.resolve(files.get(i).getFileName() + (kind.isEmpty() ? "" : "." + kind));
+            try (OutputStream raw = Files.newOutputStream(target);
+                 OutputStream out = switch (kind) {
+                     case "gz" -> new GZIPOutputStream(raw);
+                     case "zst" -> new ZstdOutputStream(raw);
+                     case "bz2" -> new BZip2CompressorOutputStream(raw);
+                     default -> raw;
+                 }) {
+                Files.copy(files.get(i), out);
+            }
+        }
+        CliTest.Run r = run("overview", mixed.toString(), "--format", "json", "--threads", "3", "--quiet",
+                "--rejects", dir.resolve("rejects-mixed.tsv").toString());
+        assertThat(r.code()).as(r.err()).isZero();
+        JsonNode j = new ObjectMapper().readTree(r.out());
+        assertThat(j.get("overall")).isEqualTo(overview.get("overall"));
+        assertThat(j.get("categories")).isEqualTo(overview.get("categories"));
     }
 
     @Test
