@@ -2,7 +2,9 @@ package org.voteworth.tally;
 
 import java.util.ArrayList;
 import java.util.Comparator;
+import java.util.HashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Optional;
 import org.voteworth.source.ReviewRow;
 import org.voteworth.source.ReviewSink;
@@ -24,6 +26,7 @@ public final class OverviewCounts implements ReviewSink {
     private final Categories categories = new Categories();
     private final List<CategoryCounts> byCategory = new ArrayList<>();
     private final FrequencyCounts reviewsPerReviewer = new FrequencyCounts();
+    private final Map<String, CategoryCounts> byName = new HashMap<>();
 
     @Override
     public void accept(ReviewRow r) {
@@ -41,29 +44,33 @@ public final class OverviewCounts implements ReviewSink {
         if (helpfulVotes < 0 || helpfulVotes > totalVotes) {
             throw new IllegalArgumentException("need 0 <= helpful <= total, got " + helpfulVotes + "/" + totalVotes);
         }
-        slice(categories.idOf(category)).add(helpfulVotes, totalVotes, starRating, verifiedFlag, incentivisedFlag, epochDay);
+        slice(category).add(helpfulVotes, totalVotes, starRating, verifiedFlag, incentivisedFlag, epochDay);
     }
 
     /** Counts one reviewer of the final reviewer table: their reviews overall and in each category. */
     public void addReviewer(ReviewerTally t) {
         reviewsPerReviewer.add(t.reviews());
-        t.reviewsByCategory().forEach((c, n) -> slice(categories.idOf(c)).addReviewer(n));
+        t.reviewsByCategory().forEach((c, n) -> slice(c).addReviewer(n));
     }
 
-    /** Counts every reviewer of a final, merged reviewer table ({@link #addReviewer} for each). */
+    /**
+     * Counts every reviewer of a final, merged reviewer table: the same as {@link #addReviewer}
+     * for each, read from the table's arrays without an object per reviewer.
+     */
     public void addReviewers(TallyTable table) {
         if (table.unit() != TallyUnit.REVIEWER) {
             throw new IllegalArgumentException("reviews per reviewer need a reviewer table, not a " + table.unit() + " table");
         }
         for (int s = 0; s < table.size(); s++) {
-            addReviewer(table.get(s));
+            reviewsPerReviewer.add(table.reviews(s));
         }
+        table.forEachCategoryCount((slot, category, reviews) -> slice(category).addReviewer(reviews));
     }
 
     /** Adds every count of {@code other} into these counts. */
     public void mergeFrom(OverviewCounts other) {
         for (CategoryCounts c : other.byCategory) {
-            slice(categories.idOf(c.category())).mergeFrom(c);
+            slice(c.category()).mergeFrom(c);
         }
         reviewsPerReviewer.mergeFrom(other.reviewsPerReviewer);
     }
@@ -97,6 +104,16 @@ public final class OverviewCounts implements ReviewSink {
     /** Rows counted in all categories. */
     public long rows() {
         return byCategory.stream().mapToLong(CategoryCounts::rows).sum();
+    }
+
+    /** The counts of a category by name; names come from few distinct strings, so the lookup is a hash hit. */
+    private CategoryCounts slice(String category) {
+        CategoryCounts c = byName.get(category);
+        if (c == null) {
+            c = slice(categories.idOf(category));
+            byName.put(category, c);
+        }
+        return c;
     }
 
     private CategoryCounts slice(int id) {

@@ -407,6 +407,17 @@ public final class TallyTable implements ReviewSink {
         }
     }
 
+    /** One reviewer's reviews in one category, as {@link #forEachCategoryCount} hands them out. */
+    @FunctionalInterface
+    interface CategoryCount {
+        void accept(int slot, String category, int reviews);
+    }
+
+    /** Every (slot, category, reviews) count, in no particular order, without an object per reviewer. */
+    void forEachCategoryCount(CategoryCount each) {
+        byCategory.forEach((key, count) -> each.accept((int) (key >>> 20), categories.name((int) (key & 0xFFFFF)), count));
+    }
+
     /** Rough heap footprint, for the memory budget. */
     public long memoryBytes() {
         return index.memoryBytes() + byCategory.memoryBytes() + (long) capacity * (4 * 6 + 8 * 4 + 4 * 5 + 4 * 2);

@@ -124,6 +124,11 @@ class OverviewCountsTest {
             assertThat(c.category(cat).orElseThrow().reviewsPerReviewer().sum()).isEqualTo(c.category(cat).orElseThrow().rows());
         }
         assertThatThrownBy(() -> c.addReviewers(new TallyTable(TallyUnit.REVIEW))).hasMessageContaining("reviewer table");
+
+        // The table's arrays read directly count the same as one whole tally per reviewer.
+        OverviewCounts byTally = counted(all);
+        t.toSortedList().forEach(byTally::addReviewer);
+        assertThat(byTally).isEqualTo(c);
     }
 
     @Test
