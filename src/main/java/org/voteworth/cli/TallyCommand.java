@@ -87,7 +87,7 @@ final class TallyCommand implements Callable<Integer> {
                         java.nio.file.StandardCopyOption.ATOMIC_MOVE);
             }
             TallyRun.Written shown = new TallyRun.Written(r.reviewers(), r.unit(), r.summary(), rejects, r.seconds(), r.bytes(),
-                    r.spills());
+                    r.spills(), r.overview());
             outw.print(summary(shown, table, f));
             outw.flush();
             return r.summary().reconciles() ? 0 : 1;

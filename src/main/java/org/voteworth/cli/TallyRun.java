@@ -22,6 +22,7 @@ import org.voteworth.source.ReviewSink;
 import org.voteworth.source.ScanSummary;
 import org.voteworth.source.SourceOptions;
 import org.voteworth.tally.BoundedTally;
+import org.voteworth.tally.OverviewCounts;
 import org.voteworth.tally.ReviewerTableFile;
 import org.voteworth.tally.TallyTable;
 import org.voteworth.tally.TallyUnit;
@@ -37,8 +38,10 @@ final class TallyRun {
      * @param rejectsFile where rejected rows went
      * @param seconds wall time
      * @param bytes input bytes on disk
+     * @param overview the data set overview counts, from the same pass (empty for a reviewer table input)
      */
-    record Result(TallyTable table, ScanSummary summary, Path rejectsFile, double seconds, long bytes) {
+    record Result(TallyTable table, ScanSummary summary, Path rejectsFile, double seconds, long bytes,
+                  OverviewCounts overview) {
         String throughput() {
             return TallyRun.throughput(summary.rowsRead(), bytes, seconds);
         }
@@ -49,9 +52,10 @@ final class TallyRun {
      *
      * @param reviewers reviewers (or reviews) in the written table
      * @param spills how often partial tallies went to disk
+     * @param overview the data set overview counts, from the same pass (empty for a reviewer table input)
      */
     record Written(long reviewers, TallyUnit unit, ScanSummary summary, Path rejectsFile, double seconds, long bytes,
-                   int spills) {
+                   int spills, OverviewCounts overview) {
         String throughput() {
             return TallyRun.throughput(summary.rowsRead(), bytes, seconds);
         }
@@ -114,15 +118,20 @@ final class TallyRun {
             }
             Path p = Path.of(o.inputs.get(0));
             TallyTable t = ReviewerTableFile.read(p);
-            return new Result(t, new ScanSummary(List.of()), rejectsFile, (System.nanoTime() - start) / 1e9, Files.size(p));
+            return new Result(t, new ScanSummary(List.of()), rejectsFile, (System.nanoTime() - start) / 1e9, Files.size(p),
+                    new OverviewCounts());
         }
         SourceOptions options = sourceOptions(o);
         List<DumpFile> files = DumpFinder.find(o.inputs, options.categories());
         // Ranking holds the whole table anyway, so the budget does not apply here.
         try (BoundedTally tally = new BoundedTally(unit, Long.MAX_VALUE, o.tmpDir())) {
             UnaryOperator<ReviewSink> cap = capVotes == 0 ? UnaryOperator.identity() : sink -> new VoteCap(capVotes, sink);
-            ScanSummary summary = scan(o, options, files, tally, cap, rejectsFile, quiet, err, start, o.tmpDir());
+            OverviewCounts overview = new OverviewCounts();
+            ScanSummary summary = scan(o, options, files, tally, cap, overview, rejectsFile, quiet, err, start, o.tmpDir());
             TallyTable table = tally.mergedInMemory();
+            if (unit == TallyUnit.REVIEWER) {
+                overview.addReviewers(table);
+            }
             double seconds = (System.nanoTime() - start) / 1e9;
             long bytes = files.stream().mapToLong(DumpFile::sizeBytes).sum();
             if (!quiet) {
@@ -130,7 +139,7 @@ final class TallyRun {
                         capVotes == 0 ? "" : ", votes capped at " + capVotes + " per review");
                 err.flush();
             }
-            return new Result(table, summary, rejectsFile, seconds, bytes);
+            return new Result(table, summary, rejectsFile, seconds, bytes, overview);
         }
     }
 
@@ -146,7 +155,7 @@ final class TallyRun {
             TallyTable t = ReviewerTableFile.read(p);
             ReviewerTableFile.write(t, table);
             return new Written(t.size(), t.unit(), new ScanSummary(List.of()), rejectsFile, (System.nanoTime() - start) / 1e9,
-                    Files.size(p), 0);
+                    Files.size(p), 0, new OverviewCounts());
         }
         SourceOptions options = sourceOptions(o);
         List<DumpFile> files = DumpFinder.find(o.inputs, options.categories());
@@ -155,15 +164,17 @@ final class TallyRun {
         Path runDir = Files.createTempDirectory(o.tmpDir(), "voteworth-tally-");
         try (TempCleanup cleanup = TempCleanup.register(() -> deleteTree(runDir));
              BoundedTally tally = new BoundedTally(unit, budget, runDir)) {
-            ScanSummary summary = scan(o, options, files, tally, UnaryOperator.identity(), rejectsFile, quiet, err, start, runDir);
+            OverviewCounts overview = new OverviewCounts();
+            ScanSummary summary = scan(o, options, files, tally, UnaryOperator.identity(), overview, rejectsFile, quiet, err, start,
+                    runDir);
             if (!quiet && tally.spilled()) {
                 err.printf(Locale.ROOT, "tally: merging %d spilled partial tallies partition by partition ...%n", tally.spills());
                 err.flush();
             }
-            tally.write(table);
+            tally.write(table, unit == TallyUnit.REVIEWER ? overview::addReviewer : t -> { });
             double seconds = (System.nanoTime() - start) / 1e9;
             long bytes = files.stream().mapToLong(DumpFile::sizeBytes).sum();
-            Written w = new Written(tally.reviewers(), unit, summary, rejectsFile, seconds, bytes, tally.spills());
+            Written w = new Written(tally.reviewers(), unit, summary, rejectsFile, seconds, bytes, tally.spills(), overview);
             if (!quiet) {
                 err.printf(Locale.ROOT, "tally: done: %,d rows, %,d %s, %,d rejected, %.1f s wall, %s, %s%s%n",
                         summary.rowsRead(), w.reviewers(), unit == TallyUnit.REVIEW ? "reviews" : "reviewers",
@@ -175,8 +186,14 @@ final class TallyRun {
         }
     }
 
+    /**
+     * Scans {@code files} once: each worker's rows go to its overview counts (votes as in the dump)
+     * and, through {@code wrap}, to its tally sink; the workers' overview counts are merged into
+     * {@code overview} at the end.
+     */
     private static ScanSummary scan(DumpOptions o, SourceOptions options, List<DumpFile> files, BoundedTally tally,
-                                    UnaryOperator<ReviewSink> wrap, Path rejectsFile, boolean quiet, PrintWriter err, long start, Path tmp) throws IOException {
+                                    UnaryOperator<ReviewSink> wrap, OverviewCounts overview, Path rejectsFile, boolean quiet,
+                                    PrintWriter err, long start, Path tmp) throws IOException {
         if (rejectsFile.toAbsolutePath().getParent() != null) {
             Files.createDirectories(rejectsFile.toAbsolutePath().getParent());
         }
@@ -184,7 +201,17 @@ final class TallyRun {
         ProgressListener progress = quiet ? ProgressListener.NONE
                 : new Progress(err, start, System.console() != null);
         try (RejectLog rejects = new RejectLog(rejectsFile)) {
-            ScanSummary s = reader.read(files, w -> wrap.apply(tally.newSink()), rejects, progress);
+            List<OverviewCounts> perWorker = new java.util.concurrent.CopyOnWriteArrayList<>();
+            ScanSummary s = reader.read(files, w -> {
+                OverviewCounts counts = new OverviewCounts();
+                perWorker.add(counts);
+                ReviewSink tallies = wrap.apply(tally.newSink());
+                return row -> {
+                    counts.accept(row);
+                    tallies.accept(row);
+                };
+            }, rejects, progress);
+            perWorker.forEach(overview::mergeFrom);
             if (progress instanceof Progress p) {
                 p.finish();
             }
