@@ -18,6 +18,7 @@ import org.voteworth.source.HeaderMapping;
 import org.voteworth.source.ParallelDumpReader;
 import org.voteworth.source.ProgressListener;
 import org.voteworth.source.RejectLog;
+import org.voteworth.source.RejectRateExceeded;
 import org.voteworth.source.ReviewSink;
 import org.voteworth.source.ScanSummary;
 import org.voteworth.source.SourceOptions;
@@ -123,24 +124,48 @@ final class TallyRun {
         }
         SourceOptions options = sourceOptions(o);
         List<DumpFile> files = DumpFinder.find(o.inputs, options.categories());
-        // Ranking holds the whole table anyway, so the budget does not apply here.
-        try (BoundedTally tally = new BoundedTally(unit, Long.MAX_VALUE, o.tmpDir())) {
+        Files.createDirectories(o.tmpDir());
+        Path runDir = Files.createTempDirectory(o.tmpDir(), "voteworth-tally-");
+        // Ranking holds the final table; --memory bounds the workers' partial tables while scanning.
+        try (TempCleanup cleanup = TempCleanup.register(() -> deleteTree(runDir));
+             BoundedTally tally = new BoundedTally(unit, o.memoryBytes(), runDir)) {
             UnaryOperator<ReviewSink> cap = capVotes == 0 ? UnaryOperator.identity() : sink -> new VoteCap(capVotes, sink);
             OverviewCounts overview = new OverviewCounts();
-            ScanSummary summary = scan(o, options, files, tally, cap, overview, rejectsFile, quiet, err, start, o.tmpDir());
-            TallyTable table = tally.mergedInMemory();
-            if (unit == TallyUnit.REVIEWER) {
-                overview.addReviewers(table);
+            ScanSummary summary = scan(o, options, files, tally, cap, overview, rejectsFile, quiet, err, start, runDir);
+            TallyTable table;
+            if (tally.spilled()) {
+                Path merged = runDir.resolve("merged-" + (unit == TallyUnit.REVIEW ? "reviews" : "reviewers") + ".csv");
+                tally.write(merged, unit == TallyUnit.REVIEWER ? overview::addReviewer : t -> { });
+                table = readBack(merged, unit);
+            } else {
+                table = tally.mergedInMemory();
+                if (unit == TallyUnit.REVIEWER) {
+                    overview.addReviewers(table);
+                }
             }
             double seconds = (System.nanoTime() - start) / 1e9;
             long bytes = files.stream().mapToLong(DumpFile::sizeBytes).sum();
             if (!quiet) {
-                err.printf(Locale.ROOT, "tally: done, %,d rows from %d files in %.1f s%s%n", summary.rowsRead(), files.size(), seconds,
-                        capVotes == 0 ? "" : ", votes capped at " + capVotes + " per review");
+                err.printf(Locale.ROOT, "tally: done, %,d rows from %d files in %.1f s%s%s%n", summary.rowsRead(), files.size(), seconds,
+                        capVotes == 0 ? "" : ", votes capped at " + capVotes + " per review",
+                        tally.spilled() ? String.format(Locale.ROOT, ", %d spills", tally.spills()) : "");
                 err.flush();
             }
             return new Result(table, summary, rejectsFile, seconds, bytes, overview);
         }
+    }
+
+    /** A table merged on disk read back into memory, keyed by {@code unit}. */
+    private static TallyTable readBack(Path merged, TallyUnit unit) throws IOException {
+        TallyTable read = ReviewerTableFile.read(merged);
+        if (unit == TallyUnit.REVIEWER) {
+            return read;
+        }
+        TallyTable t = new TallyTable(unit);
+        for (int s = 0; s < read.size(); s++) {
+            t.add(read.get(s));
+        }
+        return t;
     }
 
     /**
@@ -197,7 +222,7 @@ final class TallyRun {
         if (rejectsFile.toAbsolutePath().getParent() != null) {
             Files.createDirectories(rejectsFile.toAbsolutePath().getParent());
         }
-        ParallelDumpReader reader = new ParallelDumpReader(options, o.threads).withTempDir(tmp);
+        ParallelDumpReader reader = new ParallelDumpReader(options, o.threads()).withTempDir(tmp);
         ProgressListener progress = quiet ? ProgressListener.NONE
                 : new Progress(err, start, System.console() != null);
         try (RejectLog rejects = new RejectLog(rejectsFile)) {
@@ -212,10 +237,14 @@ final class TallyRun {
                 };
             }, rejects, progress);
             perWorker.forEach(overview::mergeFrom);
+            return s;
+        } catch (RejectRateExceeded e) {
+            // The rejects file is closed (complete up to the stop) by now: it is the user's evidence.
+            throw e.keptIn(rejectsFile);
+        } finally {
             if (progress instanceof Progress p) {
                 p.finish();
             }
-            return s;
         }
     }
 
