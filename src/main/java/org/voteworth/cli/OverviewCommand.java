@@ -50,7 +50,7 @@ final class OverviewCommand implements Callable<Integer> {
         // The reviewer table is only needed for reviews per reviewer; it is written within --memory and dropped.
         Path table = Files.createTempFile(dump.tmpDir(), "voteworth-overview-", ".csv");
         TallyRun.Written w;
-        try (TallyRun.TempCleanup cleanup = TallyRun.TempCleanup.register(() -> TallyRun.deleteTree(table))) {
+        try (TallyRun.TempCleanup cleanup = TallyRun.TempCleanup.register(table)) {
             w = TallyRun.write(dump, TallyUnit.REVIEWER, table, rejects, report.quiet, err);
         }
         DatasetOverview o = DatasetOverview.of(w.overview());

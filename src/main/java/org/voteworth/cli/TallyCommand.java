@@ -67,7 +67,7 @@ final class TallyCommand implements Callable<Integer> {
         List<Path> finals = u == TallyUnit.REVIEWER ? List.of(table, rejects, reconciliation, overview)
                 : List.of(table, rejects, reconciliation);
         List<Path> partials = finals.stream().map(TallyCommand::partial).toList();
-        try (TallyRun.TempCleanup cleanup = TallyRun.TempCleanup.register(() -> partials.forEach(TallyCommand::deleteQuietly))) {
+        try (TallyRun.TempCleanup cleanup = TallyRun.TempCleanup.register(partials)) {
             for (Path p : finals) {
                 Files.deleteIfExists(p);
             }
@@ -98,14 +98,6 @@ final class TallyCommand implements Callable<Integer> {
 
     private static Path partial(Path p) {
         return p.resolveSibling("." + p.getFileName() + ".partial");
-    }
-
-    private static void deleteQuietly(Path p) {
-        try {
-            Files.deleteIfExists(p);
-        } catch (IOException e) {
-            // Best effort on the way out.
-        }
     }
 
     static TallyUnit unit(String s) {

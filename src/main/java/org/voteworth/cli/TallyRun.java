@@ -9,6 +9,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
+import java.util.function.LongSupplier;
 import java.util.function.UnaryOperator;
 import org.voteworth.source.CategoryFromName;
 import org.voteworth.source.DumpFile;
@@ -63,6 +64,14 @@ final class TallyRun {
     }
 
     private TallyRun() {
+    }
+
+    /** The closing line of a tally: rows, reviewers, rejects, wall time, throughput, peak memory and spills. */
+    static String doneLine(Written w, String peakMemory) {
+        return String.format(Locale.ROOT, "tally: done: %,d rows, %,d %s, %,d rejected, %.1f s wall, %s, %s%s",
+                w.summary().rowsRead(), w.reviewers(), w.unit() == TallyUnit.REVIEW ? "reviews" : "reviewers",
+                w.summary().rejected(), w.seconds(), w.throughput(), peakMemory,
+                w.spills() > 0 ? String.format(Locale.ROOT, ", %d spills", w.spills()) : "");
     }
 
     static String throughput(long rows, long bytes, double seconds) {
@@ -127,7 +136,7 @@ final class TallyRun {
         Files.createDirectories(o.tmpDir());
         Path runDir = Files.createTempDirectory(o.tmpDir(), "voteworth-tally-");
         // Ranking holds the final table; --memory bounds the workers' partial tables while scanning.
-        try (TempCleanup cleanup = TempCleanup.register(() -> deleteTree(runDir));
+        try (TempCleanup cleanup = TempCleanup.register(runDir);
              BoundedTally tally = new BoundedTally(unit, o.memoryBytes(), runDir)) {
             UnaryOperator<ReviewSink> cap = capVotes == 0 ? UnaryOperator.identity() : sink -> new VoteCap(capVotes, sink);
             OverviewCounts overview = new OverviewCounts();
@@ -146,9 +155,8 @@ final class TallyRun {
             double seconds = (System.nanoTime() - start) / 1e9;
             long bytes = files.stream().mapToLong(DumpFile::sizeBytes).sum();
             if (!quiet) {
-                err.printf(Locale.ROOT, "tally: done, %,d rows from %d files in %.1f s%s%s%n", summary.rowsRead(), files.size(), seconds,
-                        capVotes == 0 ? "" : ", votes capped at " + capVotes + " per review",
-                        tally.spilled() ? String.format(Locale.ROOT, ", %d spills", tally.spills()) : "");
+                Written w = new Written(table.size(), unit, summary, rejectsFile, seconds, bytes, tally.spills(), overview);
+                err.println(doneLine(w, peakMemory()) + (capVotes == 0 ? "" : ", votes capped at " + capVotes + " per review"));
                 err.flush();
             }
             return new Result(table, summary, rejectsFile, seconds, bytes, overview);
@@ -187,7 +195,7 @@ final class TallyRun {
         long budget = o.memoryBytes();
         Files.createDirectories(o.tmpDir());
         Path runDir = Files.createTempDirectory(o.tmpDir(), "voteworth-tally-");
-        try (TempCleanup cleanup = TempCleanup.register(() -> deleteTree(runDir));
+        try (TempCleanup cleanup = TempCleanup.register(runDir);
              BoundedTally tally = new BoundedTally(unit, budget, runDir)) {
             OverviewCounts overview = new OverviewCounts();
             ScanSummary summary = scan(o, options, files, tally, UnaryOperator.identity(), overview, rejectsFile, quiet, err, start,
@@ -201,10 +209,7 @@ final class TallyRun {
             long bytes = files.stream().mapToLong(DumpFile::sizeBytes).sum();
             Written w = new Written(tally.reviewers(), unit, summary, rejectsFile, seconds, bytes, tally.spills(), overview);
             if (!quiet) {
-                err.printf(Locale.ROOT, "tally: done: %,d rows, %,d %s, %,d rejected, %.1f s wall, %s, %s%s%n",
-                        summary.rowsRead(), w.reviewers(), unit == TallyUnit.REVIEW ? "reviews" : "reviewers",
-                        summary.rejected(), seconds, w.throughput(), peakMemory(),
-                        tally.spilled() ? String.format(Locale.ROOT, ", %d spills", tally.spills()) : "");
+                err.println(doneLine(w, peakMemory()));
                 err.flush();
             }
             return w;
@@ -286,47 +291,58 @@ final class TallyRun {
 
     /**
      * Progress on stderr: on a terminal a bar redrawn in place a few times a second, otherwise a
-     * plain line every few seconds; both give done of total, rows per second and time left.
+     * plain line every few seconds; both give bytes done of total, rows per second and time left.
      * Thread-safe.
      */
     static final class Progress implements ProgressListener {
+        /** How often the bar is redrawn on a terminal. */
+        static final long BAR_EVERY_NANOS = 250_000_000L;
+        /** How often a plain line is logged when stderr is not a terminal. */
+        static final long LINE_EVERY_NANOS = 3_000_000_000L;
         private static final int WIDTH = 30;
         private final PrintWriter err;
         private final long start;
         private final boolean bar;
         private final long everyNanos;
+        private final LongSupplier clock;
         private long last;
         private boolean drawn;
 
         Progress(PrintWriter err, long start, boolean bar) {
+            this(err, start, bar, bar ? BAR_EVERY_NANOS : LINE_EVERY_NANOS, System::nanoTime);
+        }
+
+        /**
+         * @param start the clock's reading when the run started
+         * @param everyNanos least time between two updates
+         * @param clock nanoseconds, as {@link System#nanoTime()} (tests pass their own)
+         */
+        Progress(PrintWriter err, long start, boolean bar, long everyNanos, LongSupplier clock) {
             this.err = err;
             this.start = start;
             this.bar = bar;
-            this.everyNanos = bar ? 250_000_000L : 3_000_000_000L;
+            this.everyNanos = everyNanos;
+            this.clock = clock;
             this.last = start;
         }
 
         @Override
         public synchronized void progress(long bytesConsumed, long bytesTotal, long rowsRead) {
-            long now = System.nanoTime();
+            long now = clock.getAsLong();
             if (now - last < everyNanos) {
                 return;
             }
             last = now;
-            double secs = (now - start) / 1e9;
-            double frac = bytesTotal == 0 ? 1 : (double) bytesConsumed / bytesTotal;
-            if (bar) {
-                frac = Math.min(1, frac);
-            }
-            double left = frac > 0 ? secs / frac - secs : Double.NaN;
+            double secs = Math.max((now - start) / 1e9, 1e-9);
+            double frac = bytesTotal == 0 ? 1 : Math.min(1, (double) bytesConsumed / bytesTotal);
+            String left = frac > 0 ? String.format(Locale.ROOT, "%.0f s", secs / frac - secs) : "?";
             if (bar) {
                 int fill = (int) Math.round(frac * WIDTH);
                 err.printf(Locale.ROOT, "\r[%s%s] %3.0f %% %s of %s, %,.0f rows/s, %s left   ", "#".repeat(fill),
-                        " ".repeat(WIDTH - fill), 100 * frac, mb(bytesConsumed), mb(bytesTotal),
-                        rowsRead / secs, Double.isNaN(left) ? "?" : String.format(Locale.ROOT, "%.0f s", left));
+                        " ".repeat(WIDTH - fill), 100 * frac, mb(bytesConsumed), mb(bytesTotal), rowsRead / secs, left);
                 drawn = true;
             } else {
-                err.printf(Locale.ROOT, "tally: %s of %s (%.0f %%), %,d rows, %,.0f rows/s, about %.0f s left%n",
+                err.printf(Locale.ROOT, "tally: %s of %s (%.0f %%), %,d rows, %,.0f rows/s, about %s left%n",
                         mb(bytesConsumed), mb(bytesTotal), 100 * frac, rowsRead, rowsRead / secs, left);
             }
             err.flush();
@@ -337,6 +353,7 @@ final class TallyRun {
             if (drawn) {
                 err.print("\r" + " ".repeat(100) + "\r");
                 err.flush();
+                drawn = false;
             }
         }
 
@@ -345,26 +362,73 @@ final class TallyRun {
         }
     }
 
-    /** Deletes the spill folder when the JVM is stopped (Ctrl-C) before the run closes it itself. */
+    /**
+     * Deletes a run's temporary and partial files when the run ends, and also when the JVM is
+     * stopped (Ctrl-C, SIGTERM) before that: the shutdown hook first interrupts the thread that
+     * registered it, so the scan stops and closes what it holds, waits a little for that, then
+     * deletes the paths, again until none is left (a worker may still be finishing a spill file).
+     */
     static final class TempCleanup implements AutoCloseable {
-        private final Runnable action;
+        private static final long STOP_WAIT_MILLIS = 2_000;
+        private static final int ATTEMPTS = 40;
+        private final List<Path> paths;
+        private final Thread owner = Thread.currentThread();
+        private final java.util.concurrent.CountDownLatch closed = new java.util.concurrent.CountDownLatch(1);
         private final Thread hook;
 
-        private TempCleanup(Runnable action) {
-            this.action = action;
-            this.hook = new Thread(action, "voteworth-cleanup");
+        private TempCleanup(List<Path> paths) {
+            this.paths = List.copyOf(paths);
+            this.hook = new Thread(this::onShutdown, "voteworth-cleanup");
         }
 
-        static TempCleanup register(Runnable action) {
-            TempCleanup c = new TempCleanup(action);
+        /** Registers the cleanup of {@code paths} (files or folders) on the calling thread's behalf. */
+        static TempCleanup register(List<Path> paths) {
+            TempCleanup c = new TempCleanup(paths);
             Runtime.getRuntime().addShutdownHook(c.hook);
             return c;
         }
 
-        /** Runs the cleanup now and drops the hook. */
+        static TempCleanup register(Path path) {
+            return register(List.of(path));
+        }
+
+        private void onShutdown() {
+            if (closed.getCount() > 0) {
+                owner.interrupt();
+                try {
+                    closed.await(STOP_WAIT_MILLIS, java.util.concurrent.TimeUnit.MILLISECONDS);
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                }
+            }
+            for (int i = 0; i < ATTEMPTS && deleteAll(); i++) {
+                try {
+                    Thread.sleep(50);
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                    return;
+                }
+            }
+        }
+
+        /** Deletes every path; whether any is still there. */
+        private boolean deleteAll() {
+            boolean left = false;
+            for (Path p : paths) {
+                deleteTree(p);
+                left |= Files.exists(p);
+            }
+            return left;
+        }
+
+        /** Deletes the paths now and drops the hook. */
         @Override
         public void close() {
-            action.run();
+            try {
+                deleteAll();
+            } finally {
+                closed.countDown();
+            }
             try {
                 Runtime.getRuntime().removeShutdownHook(hook);
             } catch (IllegalStateException e) {

@@ -26,7 +26,7 @@ public final class OverviewWriter {
                     + " are statistical evidence about votes, not judgements of people.");
 
     private static final String NO_CATEGORY = "(none)";
-    private static final String ALL = "all";
+    private static final String ALL = "(all)";
 
     private OverviewWriter() {
     }

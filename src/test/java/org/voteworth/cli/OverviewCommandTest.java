@@ -188,7 +188,7 @@ class OverviewCommandTest {
         CliTest.Run csv = run("overview", dump.toString(), "--format", "csv", "--quiet", "--out", dir.resolve("o").toString());
         assertThat(csv.out()).contains("overview.csv");
         assertThat(Files.readString(dir.resolve("o").resolve("overview.csv"))).startsWith("category,measure,value\n")
-                .contains("all,rows,8600\n");
+                .contains("(all),rows,8600\n");
     }
 
     @Test
