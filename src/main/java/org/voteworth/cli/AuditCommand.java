@@ -111,7 +111,7 @@ final class AuditCommand implements Callable<Integer> {
         PromotionAudit.Bar bar = targetShare != null ? new PromotionAudit.TargetShare(targetShare, scoring.confidence)
                 : new PromotionAudit.TopK(topK, scoring.rule);
         PromotionAudit.Settings s = new PromotionAudit.Settings(fit.prior(), primary, top, rankings,
-                uncertainty.settings(Math.max(1, top)), beatProbability, scoring.confidence, scoring.concentrationLimit);
+                uncertainty.settings(Math.max(1, top), dump.threads()), beatProbability, scoring.confidence, scoring.concentrationLimit);
         AuditResult r = PromotionAudit.run(promoted, bar, s, privacy.ids());
         List<String> failures = policy.failures(r.summary());
         Map<String, String> p = AnalysisInput.parameters(fit, scoring, dump, t.table());

@@ -39,13 +39,34 @@ final class DumpOptions {
                     + "or beside the first input's folder when there is no --out).")
     Path rejects;
 
-    /** Scanning threads, memory budget and temp folder: set by the commands that offer them (see TallyCommand). */
+    /** The default of {@code --memory}; the launcher's default heap is sized from it (see README). */
+    static final String DEFAULT_MEMORY = "256MiB";
+
+    @Option(names = "--threads", paramLabel = "N",
+            description = "Worker threads for the whole command: scanning, and the Monte Carlo draws where there are any "
+                    + "(default: the available processors). Results are identical for any N.")
     int threads = Runtime.getRuntime().availableProcessors();
-    String memory = "256MiB";
+
+    @Option(names = "--memory", defaultValue = DEFAULT_MEMORY, paramLabel = "SIZE",
+            description = "Memory budget for the partial tallies while scanning (default: ${DEFAULT-VALUE}); above it they "
+                    + "spill to --tmp and are merged partition by partition. Commands that rank still hold the final "
+                    + "reviewer table. Units: KB, MB, GB, KiB, MiB, GiB.")
+    String memory = DEFAULT_MEMORY;
+
+    @Option(names = "--tmp", paramLabel = "DIR",
+            description = "Folder for spilled tallies and buffered rejects (default: the system temp folder).")
     Path tmp;
 
     long memoryBytes() {
         return org.voteworth.demo.DemoOptions.parseSize(memory);
+    }
+
+    /** The worker count, checked: 1 or more. */
+    int threads() {
+        if (threads < 1) {
+            throw new IllegalArgumentException("--threads must be 1 or more, got " + threads);
+        }
+        return threads;
     }
 
     Path tmpDir() {

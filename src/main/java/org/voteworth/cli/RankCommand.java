@@ -70,7 +70,7 @@ final class RankCommand implements Callable<Integer> {
         RankingReport ranking = run.report(run.primary, top, privacy.ids(), Map.of("input", String.join(" ", dump.inputs)));
         String text = withUncertainty
                 ? UncertainRankingWriter.write(ranking, RankUncertainty.of(run.primary,
-                        uncertainty.settings(uncertaintyK > 0 ? uncertaintyK : top)), f, explain)
+                        uncertainty.settings(uncertaintyK > 0 ? uncertaintyK : top, dump.threads())), f, explain)
                 : RankingWriter.write(ranking, f, explain);
         report.emit(spec, "ranking-" + run.primary.rule().name(), f, text);
         return report.finish(t, err);

@@ -94,7 +94,7 @@ final class ReportCommand implements Callable<Integer> {
         TallyRun.Result t = AnalysisInput.read(dump, scoring, TallyUnit.REVIEWER, rejects, quiet, err);
         RankRun run = RankRun.of(t.table(), scoring);
         Map<String, String> p = new LinkedHashMap<>(AnalysisInput.parameters(run.fit, scoring, dump, t.table()));
-        write(out, t, run, run.primary, top, rows, privacy.ids(), promoted, uncertainty.settings(top), bars, p);
+        write(out, t, run, run.primary, top, rows, privacy.ids(), promoted, uncertainty.settings(top, dump.threads()), bars, p);
         PrintWriter stdout = spec.commandLine().getOut();
         stdout.println(out.toAbsolutePath().normalize());
         stdout.flush();
@@ -132,7 +132,7 @@ final class ReportCommand implements Callable<Integer> {
                 new PromotionAudit.Settings(run.fit.prior(), primary, k, run.compared, draws, 0.9, run.settings.confidence(),
                         run.concentrationLimit), ids));
         audit.ifPresent(a -> p.put("audit", "the list " + a.list() + " against the top " + k + " under " + primary.rule().name()));
-        HtmlReport html = new HtmlReport("Reviewer credibility report", p, t.summary(), t.table(), ranking, u, k, sweep,
+        HtmlReport html = new HtmlReport("Reviewer credibility report", p, t.summary(), t.table(), t.overview(), ranking, u, k, sweep,
                 comparison, audit);
         Files.writeString(file, html.render());
     }

@@ -51,10 +51,15 @@ final class ReportOptions {
 
     /** Ends the run with the reconciliation on stderr (unless quiet); exit code 1 when it does not hold. */
     int finish(TallyRun.Result t, PrintWriter err) {
-        if (!quiet && !t.summary().files().isEmpty()) {
-            err.print(t.summary().describe());
+        return finish(t.summary(), err);
+    }
+
+    /** As {@link #finish(TallyRun.Result, PrintWriter)} for a scan's reconciliation. */
+    int finish(org.voteworth.source.ScanSummary s, PrintWriter err) {
+        if (!quiet && !s.files().isEmpty()) {
+            err.print(s.describe());
             err.flush();
         }
-        return t.summary().reconciles() ? 0 : 1;
+        return s.reconciles() ? 0 : 1;
     }
 }

@@ -7,9 +7,12 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
+import org.voteworth.analysis.DatasetOverview;
 import org.voteworth.report.Grid;
 import org.voteworth.report.Json;
 import org.voteworth.report.OutputFormat;
+import org.voteworth.report.OverviewWriter;
+import org.voteworth.source.RejectRateExceeded;
 import org.voteworth.source.FileReport;
 import org.voteworth.tally.ReviewerTableFile;
 import org.voteworth.tally.TallyUnit;
@@ -23,7 +26,8 @@ import picocli.CommandLine.Model.CommandSpec;
 @Command(name = "tally", mixinStandardHelpOptions = true,
         description = {"Streams a review dump and writes per-reviewer vote tallies across all categories.",
                 "Writes reviewers.csv (one row per reviewer), rejects.tsv (every rejected row with file, line, field "
-                        + "and reason) and reconciliation.txt to --out, and prints the reconciliation "
+                        + "and reason), reconciliation.txt and overview.json (the data set overview, as 'overview' "
+                        + "prints it) to --out, and prints the reconciliation "
                         + "read = accepted + rejected per file."})
 final class TallyCommand implements Callable<Integer> {
     @Spec
@@ -47,19 +51,6 @@ final class TallyCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "No progress on stderr.")
     boolean quiet;
 
-    @Option(names = "--threads", paramLabel = "N",
-            description = "Scanning threads (default: the available processors). Results are identical for any N.")
-    int threads = Runtime.getRuntime().availableProcessors();
-
-    @Option(names = "--memory", defaultValue = "256MiB", paramLabel = "SIZE",
-            description = "Memory budget for the tallies (default: ${DEFAULT-VALUE}); above it, partial tallies spill to "
-                    + "--tmp and are merged partition by partition. Units: MB, GB, MiB, GiB.")
-    String memory;
-
-    @Option(names = "--tmp", paramLabel = "DIR",
-            description = "Folder for spilled tallies and buffered rejects (default: the system temp folder).")
-    Path tmp;
-
     @Override
     public Integer call() throws IOException {
         PrintWriter outw = spec.commandLine().getOut();
@@ -67,27 +58,38 @@ final class TallyCommand implements Callable<Integer> {
         OutputFormat f = OutputFormat.parse(format);
         Files.createDirectories(out);
         Path rejects = dump.rejectsFile().orElse(out.resolve("rejects.tsv"));
-        dump.threads = threads;
-        dump.memory = memory;
-        dump.tmp = tmp;
         TallyUnit u = unit(unit);
         Path table = out.resolve(u == TallyUnit.REVIEW ? "reviews.csv" : "reviewers.csv");
         Path reconciliation = out.resolve("reconciliation.txt");
+        Path overview = out.resolve("overview.json");
         // Written under partial names and renamed at the end: an interrupted run leaves nothing that looks complete.
-        List<Path> finals = List.of(table, rejects, reconciliation);
+        // Reviews per reviewer need reviewer tallies, so the review unit writes no overview.
+        List<Path> finals = u == TallyUnit.REVIEWER ? List.of(table, rejects, reconciliation, overview)
+                : List.of(table, rejects, reconciliation);
         List<Path> partials = finals.stream().map(TallyCommand::partial).toList();
-        try (TallyRun.TempCleanup cleanup = TallyRun.TempCleanup.register(() -> partials.forEach(TallyCommand::deleteQuietly))) {
+        try (TallyRun.TempCleanup cleanup = TallyRun.TempCleanup.register(partials)) {
             for (Path p : finals) {
                 Files.deleteIfExists(p);
             }
-            TallyRun.Written r = TallyRun.write(dump, u, partials.get(0), partials.get(1), quiet, err);
+            TallyRun.Written r;
+            try {
+                r = TallyRun.write(dump, u, partials.get(0), partials.get(1), quiet, err);
+            } catch (RejectRateExceeded e) {
+                // Stopped for too many rejects: the rejects so far are the evidence, so they stay; nothing else is written.
+                Files.move(partials.get(1), rejects, java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+                throw e.keptIn(rejects);
+            }
+            TallyRun.Written shown = new TallyRun.Written(r.reviewers(), r.unit(), r.summary(), rejects, r.seconds(), r.bytes(),
+                    r.spills(), r.overview());
             Files.writeString(partials.get(2), r.summary().describe());
+            if (u == TallyUnit.REVIEWER) {
+                Files.writeString(partials.get(3), OverviewWriter.write(DatasetOverview.of(r.overview()), OutputFormat.JSON,
+                        OverviewCommand.parameters(dump, shown)));
+            }
             for (int i = 0; i < finals.size(); i++) {
                 Files.move(partials.get(i), finals.get(i), java.nio.file.StandardCopyOption.REPLACE_EXISTING,
                         java.nio.file.StandardCopyOption.ATOMIC_MOVE);
             }
-            TallyRun.Written shown = new TallyRun.Written(r.reviewers(), r.unit(), r.summary(), rejects, r.seconds(), r.bytes(),
-                    r.spills());
             outw.print(summary(shown, table, f));
             outw.flush();
             return r.summary().reconciles() ? 0 : 1;
@@ -96,14 +98,6 @@ final class TallyCommand implements Callable<Integer> {
 
     private static Path partial(Path p) {
         return p.resolveSibling("." + p.getFileName() + ".partial");
-    }
-
-    private static void deleteQuietly(Path p) {
-        try {
-            Files.deleteIfExists(p);
-        } catch (IOException e) {
-            // Best effort on the way out.
-        }
     }
 
     static TallyUnit unit(String s) {
@@ -132,7 +126,7 @@ final class TallyCommand implements Callable<Integer> {
                 : "read = accepted + rejected does NOT hold: see reconciliation.txt";
         return switch (f) {
             case TABLE -> r.summary().describe() + "\n" + totals + "\nreviewer table: " + table + "\nrejects: "
-                    + r.rejectsFile() + "\n";
+                    + r.rejectsFile() + "\n" + (r.unit() == TallyUnit.REVIEWER ? "overview: " + table.resolveSibling("overview.json") + "\n" : "");
             case MD -> "# Tally\n\n" + g.toMarkdown() + "\n" + totals + "\n\n" + check + "\n\n- reviewer table: `" + table
                     + "`\n- rejects: `" + r.rejectsFile() + "`\n";
             case CSV -> g.toCsv();

@@ -9,6 +9,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
+import java.util.function.LongSupplier;
 import java.util.function.UnaryOperator;
 import org.voteworth.source.CategoryFromName;
 import org.voteworth.source.DumpFile;
@@ -18,10 +19,12 @@ import org.voteworth.source.HeaderMapping;
 import org.voteworth.source.ParallelDumpReader;
 import org.voteworth.source.ProgressListener;
 import org.voteworth.source.RejectLog;
+import org.voteworth.source.RejectRateExceeded;
 import org.voteworth.source.ReviewSink;
 import org.voteworth.source.ScanSummary;
 import org.voteworth.source.SourceOptions;
 import org.voteworth.tally.BoundedTally;
+import org.voteworth.tally.OverviewCounts;
 import org.voteworth.tally.ReviewerTableFile;
 import org.voteworth.tally.TallyTable;
 import org.voteworth.tally.TallyUnit;
@@ -37,8 +40,10 @@ final class TallyRun {
      * @param rejectsFile where rejected rows went
      * @param seconds wall time
      * @param bytes input bytes on disk
+     * @param overview the data set overview counts, from the same pass (empty for a reviewer table input)
      */
-    record Result(TallyTable table, ScanSummary summary, Path rejectsFile, double seconds, long bytes) {
+    record Result(TallyTable table, ScanSummary summary, Path rejectsFile, double seconds, long bytes,
+                  OverviewCounts overview) {
         String throughput() {
             return TallyRun.throughput(summary.rowsRead(), bytes, seconds);
         }
@@ -49,15 +54,24 @@ final class TallyRun {
      *
      * @param reviewers reviewers (or reviews) in the written table
      * @param spills how often partial tallies went to disk
+     * @param overview the data set overview counts, from the same pass (empty for a reviewer table input)
      */
     record Written(long reviewers, TallyUnit unit, ScanSummary summary, Path rejectsFile, double seconds, long bytes,
-                   int spills) {
+                   int spills, OverviewCounts overview) {
         String throughput() {
             return TallyRun.throughput(summary.rowsRead(), bytes, seconds);
         }
     }
 
     private TallyRun() {
+    }
+
+    /** The closing line of a tally: rows, reviewers, rejects, wall time, throughput, peak memory and spills. */
+    static String doneLine(Written w, String peakMemory) {
+        return String.format(Locale.ROOT, "tally: done: %,d rows, %,d %s, %,d rejected, %.1f s wall, %s, %s%s",
+                w.summary().rowsRead(), w.reviewers(), w.unit() == TallyUnit.REVIEW ? "reviews" : "reviewers",
+                w.summary().rejected(), w.seconds(), w.throughput(), peakMemory,
+                w.spills() > 0 ? String.format(Locale.ROOT, ", %d spills", w.spills()) : "");
     }
 
     static String throughput(long rows, long bytes, double seconds) {
@@ -114,24 +128,52 @@ final class TallyRun {
             }
             Path p = Path.of(o.inputs.get(0));
             TallyTable t = ReviewerTableFile.read(p);
-            return new Result(t, new ScanSummary(List.of()), rejectsFile, (System.nanoTime() - start) / 1e9, Files.size(p));
+            return new Result(t, new ScanSummary(List.of()), rejectsFile, (System.nanoTime() - start) / 1e9, Files.size(p),
+                    new OverviewCounts());
         }
         SourceOptions options = sourceOptions(o);
         List<DumpFile> files = DumpFinder.find(o.inputs, options.categories());
-        // Ranking holds the whole table anyway, so the budget does not apply here.
-        try (BoundedTally tally = new BoundedTally(unit, Long.MAX_VALUE, o.tmpDir())) {
+        Files.createDirectories(o.tmpDir());
+        Path runDir = Files.createTempDirectory(o.tmpDir(), "voteworth-tally-");
+        // Ranking holds the final table; --memory bounds the workers' partial tables while scanning.
+        try (TempCleanup cleanup = TempCleanup.register(runDir);
+             BoundedTally tally = new BoundedTally(unit, o.memoryBytes(), runDir)) {
             UnaryOperator<ReviewSink> cap = capVotes == 0 ? UnaryOperator.identity() : sink -> new VoteCap(capVotes, sink);
-            ScanSummary summary = scan(o, options, files, tally, cap, rejectsFile, quiet, err, start, o.tmpDir());
-            TallyTable table = tally.mergedInMemory();
+            OverviewCounts overview = new OverviewCounts();
+            ScanSummary summary = scan(o, options, files, tally, cap, overview, rejectsFile, quiet, err, start, runDir);
+            TallyTable table;
+            if (tally.spilled()) {
+                Path merged = runDir.resolve("merged-" + (unit == TallyUnit.REVIEW ? "reviews" : "reviewers") + ".csv");
+                tally.write(merged, unit == TallyUnit.REVIEWER ? overview::addReviewer : t -> { });
+                table = readBack(merged, unit);
+            } else {
+                table = tally.mergedInMemory();
+                if (unit == TallyUnit.REVIEWER) {
+                    overview.addReviewers(table);
+                }
+            }
             double seconds = (System.nanoTime() - start) / 1e9;
             long bytes = files.stream().mapToLong(DumpFile::sizeBytes).sum();
             if (!quiet) {
-                err.printf(Locale.ROOT, "tally: done, %,d rows from %d files in %.1f s%s%n", summary.rowsRead(), files.size(), seconds,
-                        capVotes == 0 ? "" : ", votes capped at " + capVotes + " per review");
+                Written w = new Written(table.size(), unit, summary, rejectsFile, seconds, bytes, tally.spills(), overview);
+                err.println(doneLine(w, peakMemory()) + (capVotes == 0 ? "" : ", votes capped at " + capVotes + " per review"));
                 err.flush();
             }
-            return new Result(table, summary, rejectsFile, seconds, bytes);
+            return new Result(table, summary, rejectsFile, seconds, bytes, overview);
         }
+    }
+
+    /** A table merged on disk read back into memory, keyed by {@code unit}. */
+    private static TallyTable readBack(Path merged, TallyUnit unit) throws IOException {
+        TallyTable read = ReviewerTableFile.read(merged);
+        if (unit == TallyUnit.REVIEWER) {
+            return read;
+        }
+        TallyTable t = new TallyTable(unit);
+        for (int s = 0; s < read.size(); s++) {
+            t.add(read.get(s));
+        }
+        return t;
     }
 
     /**
@@ -146,49 +188,68 @@ final class TallyRun {
             TallyTable t = ReviewerTableFile.read(p);
             ReviewerTableFile.write(t, table);
             return new Written(t.size(), t.unit(), new ScanSummary(List.of()), rejectsFile, (System.nanoTime() - start) / 1e9,
-                    Files.size(p), 0);
+                    Files.size(p), 0, new OverviewCounts());
         }
         SourceOptions options = sourceOptions(o);
         List<DumpFile> files = DumpFinder.find(o.inputs, options.categories());
         long budget = o.memoryBytes();
         Files.createDirectories(o.tmpDir());
         Path runDir = Files.createTempDirectory(o.tmpDir(), "voteworth-tally-");
-        try (TempCleanup cleanup = TempCleanup.register(() -> deleteTree(runDir));
+        try (TempCleanup cleanup = TempCleanup.register(runDir);
              BoundedTally tally = new BoundedTally(unit, budget, runDir)) {
-            ScanSummary summary = scan(o, options, files, tally, UnaryOperator.identity(), rejectsFile, quiet, err, start, runDir);
+            OverviewCounts overview = new OverviewCounts();
+            ScanSummary summary = scan(o, options, files, tally, UnaryOperator.identity(), overview, rejectsFile, quiet, err, start,
+                    runDir);
             if (!quiet && tally.spilled()) {
                 err.printf(Locale.ROOT, "tally: merging %d spilled partial tallies partition by partition ...%n", tally.spills());
                 err.flush();
             }
-            tally.write(table);
+            tally.write(table, unit == TallyUnit.REVIEWER ? overview::addReviewer : t -> { });
             double seconds = (System.nanoTime() - start) / 1e9;
             long bytes = files.stream().mapToLong(DumpFile::sizeBytes).sum();
-            Written w = new Written(tally.reviewers(), unit, summary, rejectsFile, seconds, bytes, tally.spills());
+            Written w = new Written(tally.reviewers(), unit, summary, rejectsFile, seconds, bytes, tally.spills(), overview);
             if (!quiet) {
-                err.printf(Locale.ROOT, "tally: done: %,d rows, %,d %s, %,d rejected, %.1f s wall, %s, %s%s%n",
-                        summary.rowsRead(), w.reviewers(), unit == TallyUnit.REVIEW ? "reviews" : "reviewers",
-                        summary.rejected(), seconds, w.throughput(), peakMemory(),
-                        tally.spilled() ? String.format(Locale.ROOT, ", %d spills", tally.spills()) : "");
+                err.println(doneLine(w, peakMemory()));
                 err.flush();
             }
             return w;
         }
     }
 
+    /**
+     * Scans {@code files} once: each worker's rows go to its overview counts (votes as in the dump)
+     * and, through {@code wrap}, to its tally sink; the workers' overview counts are merged into
+     * {@code overview} at the end.
+     */
     private static ScanSummary scan(DumpOptions o, SourceOptions options, List<DumpFile> files, BoundedTally tally,
-                                    UnaryOperator<ReviewSink> wrap, Path rejectsFile, boolean quiet, PrintWriter err, long start, Path tmp) throws IOException {
+                                    UnaryOperator<ReviewSink> wrap, OverviewCounts overview, Path rejectsFile, boolean quiet,
+                                    PrintWriter err, long start, Path tmp) throws IOException {
         if (rejectsFile.toAbsolutePath().getParent() != null) {
             Files.createDirectories(rejectsFile.toAbsolutePath().getParent());
         }
-        ParallelDumpReader reader = new ParallelDumpReader(options, o.threads).withTempDir(tmp);
+        ParallelDumpReader reader = new ParallelDumpReader(options, o.threads()).withTempDir(tmp);
         ProgressListener progress = quiet ? ProgressListener.NONE
                 : new Progress(err, start, System.console() != null);
         try (RejectLog rejects = new RejectLog(rejectsFile)) {
-            ScanSummary s = reader.read(files, w -> wrap.apply(tally.newSink()), rejects, progress);
+            List<OverviewCounts> perWorker = new java.util.concurrent.CopyOnWriteArrayList<>();
+            ScanSummary s = reader.read(files, w -> {
+                OverviewCounts counts = new OverviewCounts();
+                perWorker.add(counts);
+                ReviewSink tallies = wrap.apply(tally.newSink());
+                return row -> {
+                    counts.accept(row);
+                    tallies.accept(row);
+                };
+            }, rejects, progress);
+            perWorker.forEach(overview::mergeFrom);
+            return s;
+        } catch (RejectRateExceeded e) {
+            // The rejects file is closed (complete up to the stop) by now: it is the user's evidence.
+            throw e.keptIn(rejectsFile);
+        } finally {
             if (progress instanceof Progress p) {
                 p.finish();
             }
-            return s;
         }
     }
 
@@ -230,47 +291,58 @@ final class TallyRun {
 
     /**
      * Progress on stderr: on a terminal a bar redrawn in place a few times a second, otherwise a
-     * plain line every few seconds; both give done of total, rows per second and time left.
+     * plain line every few seconds; both give bytes done of total, rows per second and time left.
      * Thread-safe.
      */
     static final class Progress implements ProgressListener {
+        /** How often the bar is redrawn on a terminal. */
+        static final long BAR_EVERY_NANOS = 250_000_000L;
+        /** How often a plain line is logged when stderr is not a terminal. */
+        static final long LINE_EVERY_NANOS = 3_000_000_000L;
         private static final int WIDTH = 30;
         private final PrintWriter err;
         private final long start;
         private final boolean bar;
         private final long everyNanos;
+        private final LongSupplier clock;
         private long last;
         private boolean drawn;
 
         Progress(PrintWriter err, long start, boolean bar) {
+            this(err, start, bar, bar ? BAR_EVERY_NANOS : LINE_EVERY_NANOS, System::nanoTime);
+        }
+
+        /**
+         * @param start the clock's reading when the run started
+         * @param everyNanos least time between two updates
+         * @param clock nanoseconds, as {@link System#nanoTime()} (tests pass their own)
+         */
+        Progress(PrintWriter err, long start, boolean bar, long everyNanos, LongSupplier clock) {
             this.err = err;
             this.start = start;
             this.bar = bar;
-            this.everyNanos = bar ? 250_000_000L : 3_000_000_000L;
+            this.everyNanos = everyNanos;
+            this.clock = clock;
             this.last = start;
         }
 
         @Override
         public synchronized void progress(long bytesConsumed, long bytesTotal, long rowsRead) {
-            long now = System.nanoTime();
+            long now = clock.getAsLong();
             if (now - last < everyNanos) {
                 return;
             }
             last = now;
-            double secs = (now - start) / 1e9;
-            double frac = bytesTotal == 0 ? 1 : (double) bytesConsumed / bytesTotal;
-            if (bar) {
-                frac = Math.min(1, frac);
-            }
-            double left = frac > 0 ? secs / frac - secs : Double.NaN;
+            double secs = Math.max((now - start) / 1e9, 1e-9);
+            double frac = bytesTotal == 0 ? 1 : Math.min(1, (double) bytesConsumed / bytesTotal);
+            String left = frac > 0 ? String.format(Locale.ROOT, "%.0f s", secs / frac - secs) : "?";
             if (bar) {
                 int fill = (int) Math.round(frac * WIDTH);
                 err.printf(Locale.ROOT, "\r[%s%s] %3.0f %% %s of %s, %,.0f rows/s, %s left   ", "#".repeat(fill),
-                        " ".repeat(WIDTH - fill), 100 * frac, mb(bytesConsumed), mb(bytesTotal),
-                        rowsRead / secs, Double.isNaN(left) ? "?" : String.format(Locale.ROOT, "%.0f s", left));
+                        " ".repeat(WIDTH - fill), 100 * frac, mb(bytesConsumed), mb(bytesTotal), rowsRead / secs, left);
                 drawn = true;
             } else {
-                err.printf(Locale.ROOT, "tally: %s of %s (%.0f %%), %,d rows, %,.0f rows/s, about %.0f s left%n",
+                err.printf(Locale.ROOT, "tally: %s of %s (%.0f %%), %,d rows, %,.0f rows/s, about %s left%n",
                         mb(bytesConsumed), mb(bytesTotal), 100 * frac, rowsRead, rowsRead / secs, left);
             }
             err.flush();
@@ -281,6 +353,7 @@ final class TallyRun {
             if (drawn) {
                 err.print("\r" + " ".repeat(100) + "\r");
                 err.flush();
+                drawn = false;
             }
         }
 
@@ -289,26 +362,73 @@ final class TallyRun {
         }
     }
 
-    /** Deletes the spill folder when the JVM is stopped (Ctrl-C) before the run closes it itself. */
+    /**
+     * Deletes a run's temporary and partial files when the run ends, and also when the JVM is
+     * stopped (Ctrl-C, SIGTERM) before that: the shutdown hook first interrupts the thread that
+     * registered it, so the scan stops and closes what it holds, waits a little for that, then
+     * deletes the paths, again until none is left (a worker may still be finishing a spill file).
+     */
     static final class TempCleanup implements AutoCloseable {
-        private final Runnable action;
+        private static final long STOP_WAIT_MILLIS = 2_000;
+        private static final int ATTEMPTS = 40;
+        private final List<Path> paths;
+        private final Thread owner = Thread.currentThread();
+        private final java.util.concurrent.CountDownLatch closed = new java.util.concurrent.CountDownLatch(1);
         private final Thread hook;
 
-        private TempCleanup(Runnable action) {
-            this.action = action;
-            this.hook = new Thread(action, "voteworth-cleanup");
+        private TempCleanup(List<Path> paths) {
+            this.paths = List.copyOf(paths);
+            this.hook = new Thread(this::onShutdown, "voteworth-cleanup");
         }
 
-        static TempCleanup register(Runnable action) {
-            TempCleanup c = new TempCleanup(action);
+        /** Registers the cleanup of {@code paths} (files or folders) on the calling thread's behalf. */
+        static TempCleanup register(List<Path> paths) {
+            TempCleanup c = new TempCleanup(paths);
             Runtime.getRuntime().addShutdownHook(c.hook);
             return c;
         }
 
-        /** Runs the cleanup now and drops the hook. */
+        static TempCleanup register(Path path) {
+            return register(List.of(path));
+        }
+
+        private void onShutdown() {
+            if (closed.getCount() > 0) {
+                owner.interrupt();
+                try {
+                    closed.await(STOP_WAIT_MILLIS, java.util.concurrent.TimeUnit.MILLISECONDS);
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                }
+            }
+            for (int i = 0; i < ATTEMPTS && deleteAll(); i++) {
+                try {
+                    Thread.sleep(50);
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                    return;
+                }
+            }
+        }
+
+        /** Deletes every path; whether any is still there. */
+        private boolean deleteAll() {
+            boolean left = false;
+            for (Path p : paths) {
+                deleteTree(p);
+                left |= Files.exists(p);
+            }
+            return left;
+        }
+
+        /** Deletes the paths now and drops the hook. */
         @Override
         public void close() {
-            action.run();
+            try {
+                deleteAll();
+            } finally {
+                closed.countDown();
+            }
             try {
                 Runtime.getRuntime().removeShutdownHook(hook);
             } catch (IllegalStateException e) {

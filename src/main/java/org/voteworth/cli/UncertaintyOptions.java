@@ -15,12 +15,8 @@ final class UncertaintyOptions {
             description = "Random seed: the same seed gives the same numbers whatever the thread count (default: ${DEFAULT-VALUE}).")
     long seed;
 
-    @Option(names = "--threads", defaultValue = "0", paramLabel = "N",
-            description = "Worker threads for the draws; 0 = all processors (default: ${DEFAULT-VALUE}).")
-    int threads;
-
-    RankUncertainty.Settings settings(int k) {
-        int t = threads > 0 ? threads : Runtime.getRuntime().availableProcessors();
-        return new RankUncertainty.Settings(k, draws, seed, t, 0.05, 0.95);
+    /** The draws' settings; {@code threads} is the command's one {@code --threads} (see DumpOptions). */
+    RankUncertainty.Settings settings(int k, int threads) {
+        return new RankUncertainty.Settings(k, draws, seed, threads, 0.05, 0.95);
     }
 }

@@ -8,15 +8,15 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
-import java.util.SortedMap;
-import java.util.TreeMap;
 import java.util.stream.Collectors;
 import org.voteworth.analysis.AuditResult;
 import org.voteworth.analysis.ComparisonResult;
+import org.voteworth.analysis.DatasetOverview;
 import org.voteworth.analysis.RankUncertainty;
 import org.voteworth.analysis.SweepResult;
 import org.voteworth.report.chart.BarChart;
 import org.voteworth.report.chart.FunnelPlot;
+import org.voteworth.report.chart.MonthChart;
 import org.voteworth.report.chart.Palette;
 import org.voteworth.report.chart.RankIntervalChart;
 import org.voteworth.report.chart.SweepChart;
@@ -24,6 +24,7 @@ import org.voteworth.score.Explanation;
 import org.voteworth.score.Flag;
 import org.voteworth.source.FileReport;
 import org.voteworth.source.ScanSummary;
+import org.voteworth.tally.OverviewCounts;
 import org.voteworth.tally.ReviewerTally;
 import org.voteworth.tally.StarCounts;
 import org.voteworth.tally.TallyTable;
@@ -41,6 +42,7 @@ import org.voteworth.tally.TallyTable;
  * @param parameters rule, confidence, prior, bars, seed ... as label → value, in order
  * @param input the reconciliation per input file (empty when the input was a reviewer table)
  * @param table the reviewer table ranked
+ * @param overview the data set overview counts of the same pass (no rows when the input was a reviewer table)
  * @param ranking the explained ranking shown in the ranking table (its first {@code k} entries get a panel)
  * @param uncertainty P(in top k) and rank intervals of {@code ranking}
  * @param k the size of the lists: panels, rank intervals, sweep and comparison
@@ -49,6 +51,7 @@ import org.voteworth.tally.TallyTable;
  * @param audit the audit of a promotion list, when one was given
  */
 public record HtmlReport(String title, Map<String, String> parameters, ScanSummary input, TallyTable table,
+                         OverviewCounts overview,
                          RankingReport ranking, RankUncertainty.Result uncertainty, int k, SweepResult sweep,
                          ComparisonResult comparison, Optional<AuditResult> audit) {
     /** The content security policy of the page: nothing may be fetched, only inline style, script and data images. */
@@ -94,38 +97,61 @@ public record HtmlReport(String title, Map<String, String> parameters, ScanSumma
         return b.toString();
     }
 
+    /** Upper ends of the bins of the votes-per-review chart; the last bin is open. */
+    private static final long[] VOTE_BINS = {0, 1, 2, 4, 9, 19, 49, 99, 199, 499, 999};
+
     private void overview(StringBuilder b) {
-        SortedMap<String, Long> byCategory = new TreeMap<>();
-        StarCounts stars = StarCounts.NONE;
-        long reviews = 0;
-        long voted = 0;
-        for (int s = 0; s < table.size(); s++) {
-            ReviewerTally t = table.get(s);
-            t.reviewsByCategory().forEach((c, n) -> byCategory.merge(c, n, Long::sum));
-            stars = stars.plus(t.stars());
-            reviews += t.reviews();
-            voted += t.votedReviews();
-        }
         section(b, "overview", "The data set");
-        b.append("<p>").append(String.format(Locale.ROOT, "%,d reviews by %,d reviewers in %,d categories.", reviews, table.size(),
-                byCategory.size())).append(" Counts summed from the reviewer table.</p>\n<div class=\"charts\">\n");
-        List<String> cats = new ArrayList<>(byCategory.keySet());
-        cats.sort((x, y) -> Long.compare(byCategory.get(y), byCategory.get(x)));
-        figure(b, new BarChart(cats.stream().map(c -> c.isEmpty() ? "(no category)" : c).toList(),
-                cats.stream().map(byCategory::get).toList(), "category", "reviews (count)", true, false)
+        if (overview.rows() == 0) {
+            b.append("<p>The input was a reviewer table, whose rows were summed per reviewer when it was written: the data set"
+                    + " overview needs the dump itself (run the report on the dump files).</p>\n</section>\n");
+            return;
+        }
+        DatasetOverview o = DatasetOverview.of(overview);
+        DatasetOverview.Section all = o.overall();
+        b.append("<p>").append(String.format(Locale.ROOT, "%,d accepted reviews by %,d reviewers in %,d categories; median %s"
+                        + " votes per review, %.1f %% of reviews without a vote.", all.rows(), all.reviewers(), o.categories().size(),
+                fmt(all.totalVotes().median()), 100 * all.zeroVoteShare().orElse(0))).append("</p>\n<div class=\"charts\">\n");
+        List<DatasetOverview.Section> cats = new ArrayList<>(o.categories());
+        cats.sort((x, y) -> Long.compare(y.rows(), x.rows()));
+        figure(b, new BarChart(cats.stream().map(c -> c.category().isEmpty() ? "(no category)" : c.category()).toList(),
+                cats.stream().map(DatasetOverview.Section::rows).toList(), "category", "reviews (count)", true, false)
                 .svg("chart-categories", 560, 80 + 24 * Math.max(3, cats.size()), Palette.BLUE), "Reviews per category.");
+        StarCounts stars = all.stars();
         figure(b, new BarChart(List.of("1 star", "2 stars", "3 stars", "4 stars", "5 stars"),
                 List.of(stars.one(), stars.two(), stars.three(), stars.four(), stars.five()), "star rating", "reviews (count)",
                 false, false).svg("chart-stars", 560, 340, Palette.BLUE),
-                String.format(Locale.ROOT, "Star ratings: %,d of %,d reviews carry one.", stars.rated(), reviews));
-        long none = reviews - voted;
-        figure(b, new BarChart(List.of(String.format(Locale.ROOT, "no votes (%.1f %%)", percent(none, reviews)),
-                        String.format(Locale.ROOT, "at least one vote (%.1f %%)", percent(voted, reviews))),
-                List.of(none, voted), "reviews", "reviews (count)", true, false).svg("chart-no-votes", 560, 180, Palette.SKY_BLUE),
-                String.format(Locale.ROOT, "Share of reviews with no votes: %.1f %% (%,d of %,d). Reviews without votes say"
-                        + " nothing about helpfulness and count for no rule.", percent(none, reviews), none, reviews));
-        b.append("</div>\n<p class=\"note\">Votes per review and reviews per month need the per-review overview counts, which"
-                + " the reviewer table does not keep; they are not shown in this report.</p>\n</section>\n");
+                String.format(Locale.ROOT, "Star ratings of the %,d rated reviews (%,d without a rating).", stars.rated(), all.unrated()));
+        long[] perBin = new long[VOTE_BINS.length + 1];
+        overview.overall().totalVotes().forEach((votes, count) -> perBin[bin(votes)] += count);
+        List<String> labels = new ArrayList<>();
+        for (int i = 0; i <= VOTE_BINS.length; i++) {
+            long lo = i == 0 ? 0 : VOTE_BINS[i - 1] + 1;
+            labels.add(i == VOTE_BINS.length ? lo + "+" : lo == VOTE_BINS[i] ? Long.toString(lo) : lo + "-" + VOTE_BINS[i]);
+        }
+        figure(b, new BarChart(labels, java.util.Arrays.stream(perBin).boxed().toList(), "total votes on the review",
+                "reviews (count, log scale)", false, true).svg("chart-votes-per-review", 560, 340, Palette.BLUE),
+                String.format(Locale.ROOT, "Votes per review: %,d of %,d reviews (%.1f %%) have no vote at all, and count for no rule;"
+                                + " the busiest review has %,d votes. The counts are on a log scale.", all.zeroVoteReviews(), all.rows(),
+                        100 * all.zeroVoteShare().orElse(0), all.totalVotes().max()));
+        figure(b, MonthChart.svg(all.reviewsPerMonth(), "reviews (count)", "chart-months", 560, 340),
+                String.format(Locale.ROOT, "Reviews per month%s.", all.undated() == 0 ? ""
+                        : String.format(Locale.ROOT, " (%,d reviews without a date are not shown)", all.undated())));
+        b.append("</div>\n<h3>By category</h3>\n").append(Html.table(OverviewWriter.categories(o), "table-overview", "category"));
+        b.append("</section>\n");
+    }
+
+    private static int bin(long votes) {
+        for (int i = 0; i < VOTE_BINS.length; i++) {
+            if (votes <= VOTE_BINS[i]) {
+                return i;
+            }
+        }
+        return VOTE_BINS.length;
+    }
+
+    private static String fmt(double v) {
+        return Double.isNaN(v) ? "-" : v == Math.rint(v) ? Long.toString((long) v) : String.format(Locale.ROOT, "%.1f", v);
     }
 
     private void funnel(StringBuilder b) {

@@ -42,7 +42,7 @@ public record RejectRateLimit(double maxRate) {
         }
     }
 
-    private DumpFormatException failure(DumpFile file, ScanCounts c, Format format, boolean atEnd) {
+    private RejectRateExceeded failure(DumpFile file, ScanCounts c, Format format, boolean atEnd) {
         StringBuilder b = new StringBuilder();
         b.append(String.format(Locale.ROOT, "%.1f %% of rows rejected (%,d of %,d read%s), over the limit of %.1f %%"
                         + " (--max-reject-rate %s); stopping.%n  Top reasons:%n",
@@ -59,7 +59,7 @@ public record RejectRateLimit(double maxRate) {
         ScanCounts.Example first = c.examples.get(top.get(0).getKey());
         b.append("  Likely fix: ").append(likelyFix(format, top.get(0).getKey(), first))
                 .append(" To let this many rows through, raise --max-reject-rate.");
-        return new DumpFormatException(file.toString(), 0, b.toString());
+        return new RejectRateExceeded(file.toString(), b.toString());
     }
 
     private static String likelyFix(Format format, String reason, ScanCounts.Example ex) {

@@ -14,6 +14,7 @@ import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
 import java.util.PriorityQueue;
+import java.util.function.Consumer;
 import java.util.stream.Stream;
 import org.voteworth.source.ReviewRow;
 import org.voteworth.source.ReviewSink;
@@ -86,12 +87,17 @@ public final class BoundedTally implements AutoCloseable {
      * Without spilling, the workers' tables are merged in memory when that fits the budget.
      */
     public void write(Path file) throws IOException {
+        write(file, t -> { });
+    }
+
+    /** As {@link #write(Path)}, handing each tally written, in id order, to {@code each} as well. */
+    public void write(Path file, Consumer<ReviewerTally> each) throws IOException {
         long inMemory = workers.stream().mapToLong(w -> w.table.memoryBytes()).sum();
         // Merging and sorting in memory needs about twice the tables' footprint.
         if (!spilled() && 2 * inMemory <= budget) {
             TallyTable all = mergedInMemory();
-            reviewers = all.size();
-            ReviewerTableFile.write(all, file);
+            int[] order = all.sortedById();
+            reviewers = ReviewerTableFile.write(java.util.Arrays.stream(order).mapToObj(all::get).peek(each).iterator(), file);
             return;
         }
         for (Worker w : workers) {
@@ -112,7 +118,20 @@ public final class BoundedTally implements AutoCloseable {
             }
             runs.add(run);
         }
-        reviewers = ReviewerTableFile.write(mergeRuns(runs), file);
+        java.util.Iterator<ReviewerTally> sorted = mergeRuns(runs);
+        reviewers = ReviewerTableFile.write(new java.util.Iterator<>() {
+            @Override
+            public boolean hasNext() {
+                return sorted.hasNext();
+            }
+
+            @Override
+            public ReviewerTally next() {
+                ReviewerTally t = sorted.next();
+                each.accept(t);
+                return t;
+            }
+        }, file);
     }
 
     /** The workers' tables merged into one, ignoring the budget (for commands that rank in memory). */

@@ -112,7 +112,7 @@ class ReportBrowserTest {
         open(demo.resolve("report.html"));
         assertThat(browser.findElement(By.cssSelector("meta[http-equiv='Content-Security-Policy']")).getAttribute("content"))
                 .isEqualTo("default-src 'none'; style-src 'unsafe-inline'; script-src 'unsafe-inline'; img-src data:");
-        List<String> charts = new ArrayList<>(List.of("chart-categories", "chart-stars", "chart-no-votes", "chart-funnel",
+        List<String> charts = new ArrayList<>(List.of("chart-categories", "chart-stars", "chart-votes-per-review", "chart-months", "chart-funnel",
                 "chart-rank-intervals", "chart-sweep"));
         for (int rank = 1; rank <= 10; rank++) {
             charts.add("chart-profile-" + rank + "-categories");

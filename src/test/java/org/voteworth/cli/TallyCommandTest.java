@@ -2,6 +2,8 @@ package org.voteworth.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.io.StringWriter;
@@ -33,17 +35,24 @@ class TallyCommandTest {
         for (String f : new String[] {"reviewers.csv", "rejects.tsv", "reconciliation.txt"}) {
             assertThat(Files.mismatch(dir.resolve("a").resolve(f), dir.resolve("b").resolve(f))).as(f).isEqualTo(-1L);
         }
+        // The overview's counts too; only its parameters (the paths of each run) differ.
+        ObjectMapper json = new ObjectMapper();
+        JsonNode oa = json.readTree(dir.resolve("a").resolve("overview.json").toFile());
+        JsonNode ob = json.readTree(dir.resolve("b").resolve("overview.json").toFile());
+        assertThat(ob.get("overall")).isEqualTo(oa.get("overall"));
+        assertThat(ob.get("categories")).isEqualTo(oa.get("categories"));
+        assertThat(oa.get("categories")).hasSize(3);
         try (Stream<Path> s = Files.list(tmp)) {
             assertThat(s).isEmpty();
         }
         try (Stream<Path> s = Files.list(dir.resolve("b"))) {
             assertThat(s.map(p -> p.getFileName().toString())).containsExactlyInAnyOrder("reviewers.csv", "rejects.tsv",
-                    "reconciliation.txt");
+                    "reconciliation.txt", "overview.json");
         }
     }
 
     @Test
-    void aFailedRunLeavesNoOutputThatLooksCompleteAndNoTemporaryFiles() throws IOException {
+    void aRunStoppedForTooManyRejectsKeepsTheRejectsAndNothingThatLooksComplete() throws IOException {
         Path dump = Files.createDirectories(dir.resolve("dump"));
         // Comma-separated rows read as TSV: every row is rejected, so the run stops.
         StringBuilder b = new StringBuilder("reviewer_id,helpful_votes,total_votes\n");
@@ -53,11 +62,18 @@ class TallyCommandTest {
         Files.writeString(dump.resolve("toys.tsv"), "reviewer_id\thelpful_votes\ttotal_votes\n" + b.substring(b.indexOf("\n") + 1));
         Path tmp = Files.createDirectories(dir.resolve("tmp"));
         Path out = dir.resolve("out");
-        assertThat(run("tally", dump.toString(), "--out", out.toString(), "--tmp", tmp.toString(), "--threads", "2",
-                "--quiet")).isEqualTo(1);
+        StringWriter err = new StringWriter();
+        assertThat(Main.run(new PrintWriter(new StringWriter()), new PrintWriter(err), "tally", dump.toString(), "--out",
+                out.toString(), "--tmp", tmp.toString(), "--threads", "2", "--quiet")).isEqualTo(1);
+        // The rejects are the evidence of what went wrong: kept, complete up to the stop, and named in the message.
         try (Stream<Path> s = Files.list(out)) {
-            assertThat(s).isEmpty();
+            assertThat(s.map(p -> p.getFileName().toString())).containsExactly("rejects.tsv");
         }
+        java.util.List<String> rejects = Files.readAllLines(out.resolve("rejects.tsv"));
+        assertThat(rejects.get(0)).isEqualTo(org.voteworth.source.RejectLog.HEADER);
+        assertThat(rejects.size() - 1).isGreaterThan(org.voteworth.source.RejectRateLimit.MIN_ROWS / 20);
+        assertThat(rejects.get(1)).contains("toys.tsv").contains(org.voteworth.source.Reject.FIELD_COUNT);
+        assertThat(err.toString()).contains("--max-reject-rate").contains("kept in " + out.resolve("rejects.tsv"));
         try (Stream<Path> s = Files.list(tmp)) {
             assertThat(s).isEmpty();
         }

@@ -8,6 +8,7 @@ import org.jfree.chart.axis.CategoryAxis;
 import org.jfree.chart.axis.CategoryLabelPositions;
 import org.jfree.chart.axis.LogAxis;
 import org.jfree.chart.axis.NumberAxis;
+import org.jfree.chart.axis.NumberTickUnit;
 import org.jfree.chart.axis.ValueAxis;
 import org.jfree.chart.labels.ItemLabelAnchor;
 import org.jfree.chart.labels.ItemLabelPosition;
@@ -50,14 +51,16 @@ public record BarChart(List<String> labels, List<Long> values, String labelAxis,
         CategoryAxis c = new CategoryAxis(labelAxis);
         c.setCategoryMargin(0.15);
         c.setMaximumCategoryLabelWidthRatio(horizontal ? 0.45f : 1f);
-        if (!horizontal && labels.size() > 12) {
-            c.setCategoryLabelPositions(CategoryLabelPositions.UP_90);
+        if (!horizontal && labels.size() > 8) {
+            c.setCategoryLabelPositions(CategoryLabelPositions.UP_45);
         }
         ValueAxis v;
         if (logScale) {
             LogAxis log = new LogAxis(valueAxis);
             log.setBase(10);
-            log.setSmallestValue(0.5);
+            // Ticks at 1, 10, 100 ...; a bar of one still shows above the axis.
+            log.setSmallestValue(0.7);
+            log.setTickUnit(new NumberTickUnit(1));
             log.setNumberFormatOverride(java.text.NumberFormat.getIntegerInstance(java.util.Locale.ROOT));
             v = log;
         } else {
