@@ -40,7 +40,7 @@ public final class Html {
     /**
      * A table of {@code g}: numeric columns right-aligned in tabular figures, every header sorts,
      * a filter box searches the text columns (reviewer ids, categories, flags), and rows come
-     * {@link #PAGE_SIZE} to a page.
+     * {@link #PAGE_SIZE} to a page (without the script, the first page shows).
      *
      * @param id the table's HTML id (letters, digits, dashes)
      * @param filterHint what the filter box searches, e.g. "reviewer id or category"
@@ -59,8 +59,11 @@ public final class Html {
                     .append(escape(h.get(i))).append("</button></th>");
         }
         b.append("</tr></thead>\n<tbody>\n");
-        for (List<String> row : g.rows()) {
-            b.append("<tr>");
+        List<List<String>> rows = g.rows();
+        for (int r = 0; r < rows.size(); r++) {
+            List<String> row = rows.get(r);
+            // Rows past the first page start hidden, so a long table costs the browser no layout before the script pages it.
+            b.append(r < PAGE_SIZE ? "<tr>" : "<tr hidden>");
             for (int i = 0; i < row.size(); i++) {
                 b.append(g.numeric(i) ? "<td class=\"num\">" : "<td>").append(escape(row.get(i))).append("</td>");
             }

@@ -35,7 +35,7 @@
       var from = page * size;
       var shown = view.slice(from, from + size);
       var fragment = document.createDocumentFragment();
-      shown.forEach(function (i) { fragment.appendChild(rows[i]); });
+      shown.forEach(function (i) { rows[i].hidden = false; fragment.appendChild(rows[i]); });
       while (tbody.firstChild) { tbody.removeChild(tbody.firstChild); }
       tbody.appendChild(fragment);
       status.textContent = view.length === 0 ? 'no rows match'

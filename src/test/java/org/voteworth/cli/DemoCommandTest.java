@@ -146,7 +146,7 @@ class DemoCommandTest {
         String t = html.substring(from, html.indexOf("</table>", from));
         List<String> headers = cells(t.substring(t.indexOf("<thead>"), t.indexOf("</thead>")), "th");
         List<Map<String, String>> rows = new ArrayList<>();
-        Matcher m = Pattern.compile("<tr>(.*?)</tr>").matcher(t.substring(t.indexOf("<tbody>")));
+        Matcher m = Pattern.compile("<tr(?: hidden)?>(.*?)</tr>").matcher(t.substring(t.indexOf("<tbody>")));
         while (m.find()) {
             List<String> c = cells(m.group(1), "td");
             Map<String, String> row = new LinkedHashMap<>();
