@@ -13,6 +13,8 @@ import java.util.List;
 public final class Html {
     /** Rows a table shows at once; sorting and filtering cover all of its rows. */
     public static final int PAGE_SIZE = 50;
+    /** Text cells longer than this get a wide column, so a long list of categories or reasons does not make a tall row. */
+    private static final int LONG = 40;
 
     private Html() {
     }
@@ -65,7 +67,9 @@ public final class Html {
             // Rows past the first page start hidden, so a long table costs the browser no layout before the script pages it.
             b.append(r < PAGE_SIZE ? "<tr>" : "<tr hidden>");
             for (int i = 0; i < row.size(); i++) {
-                b.append(g.numeric(i) ? "<td class=\"num\">" : "<td>").append(escape(row.get(i))).append("</td>");
+                String c = row.get(i);
+                b.append(g.numeric(i) ? "<td class=\"num\">" : c.length() > LONG ? "<td class=\"long\">" : "<td>")
+                        .append(escape(c)).append("</td>");
             }
             b.append("</tr>\n");
         }

@@ -10,6 +10,7 @@ import java.nio.file.StandardCopyOption;
 import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.util.logging.Level;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
@@ -89,12 +90,11 @@ class ReportBrowserTest {
         browser.get(page.toUri().toString());
     }
 
+    /** The text of one column in the rows the table shows now, in order. */
+    @SuppressWarnings("unchecked")
     private static List<String> column(String table, int index) {
-        List<String> out = new ArrayList<>();
-        for (WebElement r : browser.findElements(By.cssSelector("#" + table + " tbody tr"))) {
-            out.add(r.findElements(By.tagName("td")).get(index).getText());
-        }
-        return out;
+        return (List<String>) js("return Array.from(document.querySelectorAll('#' + arguments[0] + ' tbody tr'),"
+                + " r => r.cells[arguments[1]].textContent);", table, index);
     }
 
     private static int columnIndex(String table, String header) {
@@ -118,16 +118,24 @@ class ReportBrowserTest {
             charts.add("chart-profile-" + rank + "-categories");
             charts.add("chart-profile-" + rank + "-stars");
         }
-        for (String id : charts) {
-            List<WebElement> found = browser.findElements(By.id(id));
-            assertThat(found).as("chart " + id).hasSize(1);
-            WebElement svg = found.get(0);
-            js("arguments[0].scrollIntoView()", svg);
-            assertThat(svg.isDisplayed()).as(id + " visible").isTrue();
-            assertThat(svg.getSize().getWidth()).as(id + " width").isGreaterThan(200);
-            assertThat(svg.getSize().getHeight()).as(id + " height").isGreaterThan(80);
-            assertThat(svg.findElements(By.tagName("text"))).as(id + " has real text labels").isNotEmpty();
+        // One round trip for all charts: each must exist, be visible by CSS, have a size and real text.
+        @SuppressWarnings("unchecked")
+        List<Map<String, Object>> seen = (List<Map<String, Object>>) js("return arguments[0].map(id => {"
+                + " const e = document.getElementById(id); if (!e) { return {id: id, found: false}; }"
+                + " const r = e.getBoundingClientRect();"
+                + " return {id: id, found: e.tagName === 'svg', visible: e.checkVisibility({checkOpacity: true, visibilityProperty: true}),"
+                + " width: r.width, height: r.height, texts: e.querySelectorAll('text').length}; });", charts);
+        for (Map<String, Object> c : seen) {
+            String id = (String) c.get("id");
+            assertThat(c.get("found")).as("chart " + id).isEqualTo(true);
+            assertThat(c.get("visible")).as(id + " visible").isEqualTo(true);
+            assertThat(((Number) c.get("width")).doubleValue()).as(id + " width").isGreaterThan(200);
+            assertThat(((Number) c.get("height")).doubleValue()).as(id + " height").isGreaterThan(80);
+            assertThat(((Number) c.get("texts")).longValue()).as(id + " has real text labels").isPositive();
         }
+        WebElement funnel = browser.findElement(By.id("chart-funnel"));
+        js("arguments[0].scrollIntoView()", funnel);
+        assertThat(funnel.isDisplayed()).isTrue();
         assertThat(browser.findElements(By.cssSelector("svg[id^='chart-']"))).hasSize(charts.size());
         for (String section : List.of("overview", "funnel", "ranking", "sweep", "compare", "audit", "reviewers", "cautions",
                 "parameters")) {

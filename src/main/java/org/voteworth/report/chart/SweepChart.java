@@ -46,7 +46,7 @@ public final class SweepChart {
             r.setSeriesStroke(s, new BasicStroke(2f));
             r.setSeriesShape(s, new Ellipse2D.Double(-3.5, -3.5, 7, 7));
         }
-        NumberAxis v = new NumberAxis("overlap of the top " + k + " with the lowest bar's (Jaccard, 0-1)");
+        NumberAxis v = new NumberAxis("Jaccard overlap with the lowest bar's top " + k);
         v.setRange(0, 1.05);
         CategoryPlot p = new CategoryPlot(d, new CategoryAxis(barAxis), v, r);
         JFreeChart chart = new JFreeChart(null, JFreeChart.DEFAULT_TITLE_FONT, p, true);
