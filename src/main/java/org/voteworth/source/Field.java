@@ -20,7 +20,7 @@ public enum Field {
     HELPFUL(true, "helpful", "helpfulvotes", "helpfulcount", "upvotes"),
     TOTAL(true, "total", "totalvotes", "votes", "votecount", "totalvotecount"),
     VERIFIED(false, "verified", "verifiedpurchase", "verifiedbuyer"),
-    INCENTIVISED(false, "incentivised", "incentivized", "incentivisedreview", "incentivizedreview", "freeproduct", "vine"),
+    INCENTIVISED(false, "incentivised", "incentivized", "incentivisedreview", "incentivizedreview", "freeproduct"),
     DATE(false, "date", "reviewdate", "posted", "postedon", "createdat");
 
     private final boolean required;
