@@ -21,6 +21,7 @@ import org.voteworth.analysis.RuleComparison;
 import org.voteworth.analysis.SweepResult;
 import org.voteworth.analysis.ThresholdSweep;
 import org.voteworth.report.HtmlReport;
+import org.voteworth.report.IdMask;
 import org.voteworth.report.RankingReport;
 import org.voteworth.score.Ranking;
 import org.voteworth.score.RankingRule;
@@ -120,7 +121,7 @@ final class ReportCommand implements Callable<Integer> {
         p.put("lists", "top " + k);
         p.put("sweep bars", bars + " " + primary.bar().on().name().toLowerCase(java.util.Locale.ROOT) + " votes");
         p.put("monte carlo", draws.draws() + " draws, seed " + draws.seed());
-        p.put("pseudonyms", ids == UnaryOperator.<String>identity() ? "no: reviewer ids as in the input"
+        p.put("pseudonyms", !(ids instanceof IdMask) ? "no: reviewer ids as in the input"
                 : "yes: reviewer ids replaced by a keyed HMAC-SHA-256 pseudonym");
         RankingReport ranking = run.report(primary, rows, ids, Map.of());
         RankUncertainty.Result u = RankUncertainty.of(primary, draws);

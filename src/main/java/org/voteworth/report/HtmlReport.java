@@ -380,8 +380,4 @@ public record HtmlReport(String title, Map<String, String> parameters, ScanSumma
     private static String day(int epochDay) {
         return epochDay == ReviewerTally.NO_DATE ? "(no date)" : LocalDate.ofEpochDay(epochDay).toString();
     }
-
-    private static double percent(long part, long whole) {
-        return whole == 0 ? 0 : 100.0 * part / whole;
-    }
 }

@@ -36,9 +36,4 @@ public final class Palette {
             default -> BLACK;
         };
     }
-
-    /** The colour as CSS {@code #rrggbb}. */
-    public static String css(Color c) {
-        return String.format(Locale.ROOT, "#%02x%02x%02x", c.getRed(), c.getGreen(), c.getBlue());
-    }
 }
