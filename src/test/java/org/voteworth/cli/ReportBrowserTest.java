@@ -149,7 +149,7 @@ class ReportBrowserTest {
         assertThat(severe).as("browser log").isEmpty();
 
         js("window.scrollTo(0, 0)");
-        browser.manage().window().setSize(new Dimension(1280, 1600));
+        browser.manage().window().setSize(new Dimension(1280, 3000));
         Path shot = browser.getScreenshotAs(OutputType.FILE).toPath();
         // Beside the test classes (target/), for docs/report-screenshot.png when the report changes.
         Path build = Path.of(ReportBrowserTest.class.getProtectionDomain().getCodeSource().getLocation().toURI()).getParent();
