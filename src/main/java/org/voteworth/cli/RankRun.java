@@ -3,15 +3,12 @@ package org.voteworth.cli;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
-import java.util.Optional;
 import java.util.function.UnaryOperator;
 import org.voteworth.report.RankingReport;
 import org.voteworth.score.BetaPrior;
 import org.voteworth.score.EmpiricalBayesPrior;
 import org.voteworth.score.EntryBar;
-import org.voteworth.score.Explainer;
 import org.voteworth.score.PriorFit;
 import org.voteworth.score.Ranker;
 import org.voteworth.score.Ranking;
@@ -75,40 +72,16 @@ final class RankRun {
 
     /** The explained top k of {@code ranking}, with the ranks under every compared rule beside. */
     RankingReport report(Ranking ranking, int k, UnaryOperator<String> ids, Map<String, String> extra) {
-        Explainer ex = new Explainer(ranking, compared, Optional.of(fit.prior()), concentrationLimit).withIds(ids);
-        String title = "Top " + Math.min(k, ranking.size()) + " by " + ranking.rule().label()
-                + (ranking.bar().minimum() > 0 ? ", " + ranking.bar().describe() : "");
         Map<String, String> p = new LinkedHashMap<>(parameters(ranking));
         p.putAll(extra);
-        return new RankingReport(title, ranking, compared, ex.explainTop(k), p);
+        return RankingReport.explain(ranking, compared, fit, concentrationLimit, k, ids, p);
     }
 
     Map<String, String> parameters(Ranking ranking) {
-        Map<String, String> p = new LinkedHashMap<>();
-        p.put("rule", ranking.rule().label() + ": " + ranking.rule().describe());
-        p.put("entry bar", ranking.bar().describe());
-        p.put("ranked", ranking.size() + " of " + table.size() + (table.unit() == org.voteworth.tally.TallyUnit.REVIEW ? " reviews" : " reviewers")
-                + " (those with at least one vote" + (ranking.bar().minimum() > 0 ? " and past the bar" : "") + ")");
-        p.put("confidence", fmt(settings.confidence()));
-        p.put("prior", describe(fit));
-        p.put("tie order", "higher score, then more total votes, then reviewer id");
-        return p;
+        return RankingReport.parameters(ranking, fit, settings.confidence());
     }
 
     static String describe(PriorFit f) {
-        String s = String.format(Locale.ROOT, "Beta(%.4f, %.4f), mean %.4f, strength %.2f votes; %s", f.prior().alpha(),
-                f.prior().beta(), f.mu(), f.kappa(), f.method().name().toLowerCase(Locale.ROOT).replace('_', ' '));
-        if (f.method() != PriorFit.Method.GIVEN) {
-            s += String.format(Locale.ROOT, " over %d reviewers (%d distinct vote pairs), log-likelihood %.2f%s", f.unitsUsed(),
-                    f.distinctPairs(), f.logLikelihood(), f.converged() ? "" : ", NOT converged");
-        }
-        if (!f.warnings().isEmpty()) {
-            s += "; " + String.join("; ", f.warnings());
-        }
-        return s;
-    }
-
-    private static String fmt(double v) {
-        return String.format(Locale.ROOT, "%s", v);
+        return f.describe();
     }
 }

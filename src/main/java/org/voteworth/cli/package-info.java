@@ -1,5 +1,5 @@
 /**
- * The {@code voteworth} command line: one picocli command per job. The only package that wires
- * the stages together.
+ * The {@code voteworth} command line: one picocli command per job. With {@code org.voteworth.api}
+ * (the library API), one of the two packages that wire the stages together.
  */
 package org.voteworth.cli;

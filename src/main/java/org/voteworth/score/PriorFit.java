@@ -1,6 +1,7 @@
 package org.voteworth.score;
 
 import java.util.List;
+import java.util.Locale;
 import java.util.Objects;
 
 /**
@@ -51,5 +52,22 @@ public record PriorFit(BetaPrior prior, Method method, double logLikelihood, lon
     /** κ = α + β. */
     public double kappa() {
         return prior.strength();
+    }
+
+    /**
+     * The prior as reports state it, e.g. "Beta(4.0952, 1.4582), mean 0.7374, strength 5.55 votes;
+     * maximum likelihood over 5147 reviewers (489 distinct vote pairs), log-likelihood ...".
+     */
+    public String describe() {
+        String s = String.format(Locale.ROOT, "Beta(%.4f, %.4f), mean %.4f, strength %.2f votes; %s", prior.alpha(),
+                prior.beta(), mu(), kappa(), method.name().toLowerCase(Locale.ROOT).replace('_', ' '));
+        if (method != Method.GIVEN) {
+            s += String.format(Locale.ROOT, " over %d reviewers (%d distinct vote pairs), log-likelihood %.2f%s", unitsUsed,
+                    distinctPairs, logLikelihood, converged ? "" : ", NOT converged");
+        }
+        if (!warnings.isEmpty()) {
+            s += "; " + String.join("; ", warnings);
+        }
+        return s;
     }
 }

@@ -143,7 +143,8 @@ public final class DumpFinder {
         }
     }
 
-    static boolean isDumpName(Path p) {
+    /** Whether a folder search picks up {@code p}: its name ends in one of {@link #EXTENSIONS}. */
+    public static boolean isDumpName(Path p) {
         String n = p.getFileName().toString().toLowerCase(Locale.ROOT);
         for (String ext : EXTENSIONS) {
             if (n.endsWith(ext)) {

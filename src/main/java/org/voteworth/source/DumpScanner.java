@@ -72,7 +72,18 @@ public final class DumpScanner {
      * @throws IOException naming the file when it cannot be read
      */
     public FileReport scan(DumpFile file, ReviewSink sink, RejectSink rejects) throws IOException {
-        try (Counting counted = new Counting(open(file)); InputStream in = piped(file, decompressed(file, counted))) {
+        return scan(file, open(file), sink, rejects);
+    }
+
+    /**
+     * Scans a whole file whose stored bytes (compressed as its name says) come from {@code stored},
+     * for files on another file system (a cluster job); {@code file} names it in reports and errors.
+     *
+     * @throws DumpFormatException naming the file, as for {@link #scan(DumpFile, ReviewSink, RejectSink)}
+     * @throws IOException naming the file when it cannot be read; {@code stored} is closed
+     */
+    public FileReport scan(DumpFile file, InputStream stored, ReviewSink sink, RejectSink rejects) throws IOException {
+        try (Counting counted = new Counting(stored); InputStream in = piped(file, decompressed(file, counted))) {
             return run(file, in, counted, 1, null, sink, rejects);
         }
     }

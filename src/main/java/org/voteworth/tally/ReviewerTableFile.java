@@ -43,7 +43,7 @@ public final class ReviewerTableFile {
     }
 
     /** Writes tallies already ordered by id (streamed from sorted partitions); returns how many. */
-    static long write(java.util.Iterator<ReviewerTally> sorted, Path file) throws IOException {
+    public static long write(java.util.Iterator<ReviewerTally> sorted, Path file) throws IOException {
         long n = 0;
         try (BufferedWriter w = new BufferedWriter(new java.io.OutputStreamWriter(Files.newOutputStream(file),
                 StandardCharsets.UTF_8), 1 << 16)) {

@@ -18,16 +18,17 @@ import org.voteworth.demo.DemoOptions;
 import org.voteworth.demo.GeneratedDump;
 import org.voteworth.tally.Csv;
 
-class CliTest {
+/** The command line end to end; {@link #run} is the capture harness every command test uses, in any package. */
+public class CliTest {
     @TempDir
     static Path dir;
     static Path dump;
     static GeneratedDump generated;
 
-    record Run(int code, String out, String err) {
+    public record Run(int code, String out, String err) {
     }
 
-    static Run run(String... args) {
+    public static Run run(String... args) {
         StringWriter out = new StringWriter();
         StringWriter err = new StringWriter();
         int code = Main.run(new PrintWriter(out), new PrintWriter(err), args);
