@@ -123,7 +123,7 @@ public final class PromotionAudit {
         for (String id : list.ids()) {
             int slot = t.find(id);
             if (slot < 0) {
-                missing.add(id);
+                missing.add(ids.apply(id));
             } else {
                 found.add(slot);
             }
@@ -195,7 +195,7 @@ public final class PromotionAudit {
                 likelyBelow, minP, found.isEmpty() ? 0 : (double) inTop / found.size(), overlooked.size(), maxError);
         List<AuditResult.Overlooked> shown = overlooked.size() > MAX_OVERLOOKED ? overlooked.subList(0, MAX_OVERLOOKED) : overlooked;
         return new AuditResult(list.source(), bar.describe(), ShareModel.posterior(s.prior()).describe(),
-                s.topKRanking().rule().name(), k, members, missing, list.duplicates(), shown, summary);
+                s.topKRanking().rule().name(), k, members, missing, list.duplicates().stream().map(ids).toList(), shown, summary);
     }
 
     static List<Flag> flags(ReviewerTally tally, double concentrationLimit) {

@@ -12,6 +12,9 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 import java.util.function.UnaryOperator;
+import org.voteworth.analysis.PromotionList;
+import org.voteworth.analysis.RankUncertainty;
+import org.voteworth.analysis.ThresholdSweep;
 import org.voteworth.demo.DemoOptions;
 import org.voteworth.demo.PlantedCases;
 import org.voteworth.report.Cautions;
@@ -42,7 +45,8 @@ import picocli.CommandLine.Model.CommandSpec;
 @Command(name = "demo", mixinStandardHelpOptions = true,
         description = {"Runs the main job on the bundled demo dump of a fictional marketplace: tally, fit the "
                 + "empirical-Bayes prior, rank by raw share above an entry bar, by Wilson lower bound and by "
-                + "Bayesian average side by side, explain every rank, and write the outputs to --out.",
+                + "Bayesian average side by side, explain every rank, and write the outputs to --out, ending with one "
+                + "self-contained HTML report (report.html) whose path it prints.",
                 "With --rows or --size it first generates a fresh dump of that size."})
 final class DemoCommand implements Callable<Integer> {
     @Spec
@@ -112,17 +116,31 @@ final class DemoCommand implements Callable<Integer> {
                 written.add(p);
             }
         }
+        Path html = out.resolve("report.html");
+        RankRun wilsonRun = new RankRun(table, fit, settings, wilson.bar(), wilson, all, Explainer.DEFAULT_CONCENTRATION_LIMIT);
+        List<String> rawTop = java.util.Arrays.stream(raw.top(top)).mapToObj(table::id).toList();
+        Map<String, String> htmlParameters = new java.util.LinkedHashMap<>();
+        htmlParameters.put("input", dumpDir.toString());
+        htmlParameters.put("raw-share entry bar", raw.bar().describe());
+        ReportCommand.write(html, t, wilsonRun, wilson, top, ReportCommand.DEFAULT_ROWS, ids,
+                Optional.of(PromotionList.of("the raw-share top " + top + " (" + raw.bar().describe() + ")", rawTop)),
+                RankUncertainty.Settings.defaults(top, UncertaintyOptions.DEFAULT_SEED), ThresholdSweep.DEFAULT_BARS,
+                htmlParameters);
+        written.add(html);
         String side = sideBySide(all, top, ids, table);
         String summary = summary(t, fit, all, side, ids);
         Files.writeString(out.resolve("summary.md"), summary);
 
         o.println(console(t, fit, all, side, ids));
         o.println("Outputs in " + out.toAbsolutePath().normalize() + ":");
+        o.println("  report.html           the report to share: charts, the ranking, sweep, comparison, audit, one panel per reviewer");
         o.println("  summary.md            what the demo shows, the three lists side by side, the prior, the cautions");
         o.println("  ranking-RULE.md|csv|json  the explained top " + top + " under raw-share, wilson and bayes-mean");
         o.println("  reviewers.csv         the reviewer table (" + table.size() + " reviewers)");
         o.println("  rejects.tsv           the " + t.summary().rejected() + " rejected rows with file, line, field and reason");
         o.println("  reconciliation.txt    read = accepted + rejected, per file");
+        o.println();
+        o.println("Open the report (it works offline): " + html.toAbsolutePath().normalize());
         o.flush();
         return t.summary().reconciles() ? 0 : 1;
     }

@@ -41,6 +41,11 @@ public final class Grid {
         return List.copyOf(headers);
     }
 
+    /** Whether column {@code i} holds numbers (its header was marked with {@code >}). */
+    public boolean numeric(int i) {
+        return numeric[i];
+    }
+
     public List<List<String>> rows() {
         return List.copyOf(rows);
     }
