@@ -131,7 +131,7 @@ public final class PromotionAudit {
         int k = bar instanceof TopK tk ? tk.k() : s.k() > 0 ? s.k() : Math.max(1, found.size());
         RankUncertainty.Settings u = new RankUncertainty.Settings(k, s.uncertainty().draws(), s.uncertainty().seed(),
                 s.uncertainty().threads(), s.uncertainty().lowQuantile(), s.uncertainty().highQuantile());
-        RankUncertainty.Result spread = RankUncertainty.of(s.topKRanking(), u);
+        RankUncertainty.Result spread = RankUncertainty.of(s.topKRanking(), s.prior(), u);
         Set<Integer> statTop = new HashSet<>();
         for (int slot : s.topKRanking().top(k)) {
             statTop.add(slot);

@@ -8,6 +8,7 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ForkJoinPool;
 import java.util.stream.IntStream;
 import org.apache.commons.math3.distribution.BetaDistribution;
+import org.voteworth.score.BetaPrior;
 import org.voteworth.score.Evidence;
 import org.voteworth.score.Ranking;
 import org.voteworth.tally.TallyTable;
@@ -15,8 +16,9 @@ import org.voteworth.score.MarsagliaTsangGamma;
 
 /**
  * How sure each rank is: seeded Monte Carlo over each ranked unit's true share, drawn from the
- * rule's {@link ShareModel} (the posterior for the Bayesian rules, a parametric bootstrap for
- * the others), ranking the draws and counting P(in top k) and rank intervals.
+ * rule's {@link ShareModel} (the posterior under the rule's prior, or under the population prior
+ * fitted to the table for rules without one), ranking the draws and counting P(in top k) and
+ * rank intervals.
  *
  * <p>Pruning (METHODS.md, "Uncertainty of a rank"): a unit whose 0.999-quantile lies below the
  * k-th largest 0.001-quantile cannot enter the top k in practice and is not drawn; quantiles are
@@ -128,8 +130,9 @@ public final class RankUncertainty {
         }
     }
 
-    public static Result of(Ranking ranking, Settings s) {
-        return of(ranking, ShareModel.forRule(ranking.rule()), s);
+    /** The spread of every unit {@code ranking} ranks, drawing from the rule's model given the population prior. */
+    public static Result of(Ranking ranking, BetaPrior population, Settings s) {
+        return of(ranking, ShareModel.forRule(ranking.rule(), population), s);
     }
 
     /** The spread of every unit {@code ranking} ranks, drawing from {@code model}. */

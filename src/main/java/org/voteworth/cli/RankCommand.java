@@ -69,7 +69,7 @@ final class RankCommand implements Callable<Integer> {
         RankRun run = RankRun.of(t.table(), scoring);
         RankingReport ranking = run.report(run.primary, top, privacy.ids(), Map.of("input", String.join(" ", dump.inputs)));
         String text = withUncertainty
-                ? UncertainRankingWriter.write(ranking, RankUncertainty.of(run.primary,
+                ? UncertainRankingWriter.write(ranking, RankUncertainty.of(run.primary, run.fit.prior(),
                         uncertainty.settings(uncertaintyK > 0 ? uncertaintyK : top, dump.threads())), f, explain)
                 : RankingWriter.write(ranking, f, explain);
         report.emit(spec, "ranking-" + run.primary.rule().name(), f, text);

@@ -124,7 +124,7 @@ final class ReportCommand implements Callable<Integer> {
         p.put("pseudonyms", !(ids instanceof IdMask) ? "no: reviewer ids as in the input"
                 : "yes: reviewer ids replaced by a keyed HMAC-SHA-256 pseudonym");
         RankingReport ranking = run.report(primary, rows, ids, Map.of());
-        RankUncertainty.Result u = RankUncertainty.of(primary, draws);
+        RankUncertainty.Result u = RankUncertainty.of(primary, run.fit.prior(), draws);
         List<RankingRule> rules = run.compared.stream().map(Ranking::rule).toList();
         SweepResult sweep = ThresholdSweep.run(t.table(), rules, primary.bar().on(), bars, k, ids);
         ComparisonResult comparison = RuleComparison.compare(run.compared, k, RankBiasedOverlap.DEFAULT_PERSISTENCE,

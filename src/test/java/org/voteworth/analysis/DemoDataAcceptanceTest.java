@@ -85,6 +85,18 @@ class DemoDataAcceptanceTest {
     }
 
     @Test
+    void theWilsonLeaderIsSurelyInTheTopTenOnceSmallSamplesAreShrunkByTheFittedPrior() {
+        // Demo-data property (invented data): planted-expert has 896 of 900 votes helpful, far more
+        // evidence than any 100 % reviewer. Under the fitted population prior its place in the top
+        // 10 is all but certain; a uniform prior would hand that place to 5-of-5 samples instead.
+        Ranking wilson = Ranker.rank(table, Rules.byName("wilson", settings), EntryBar.NONE);
+        RankUncertainty.Result u = RankUncertainty.of(wilson, settings.prior(), RankUncertainty.Settings.defaults(10, 42));
+        assertThat(u.of(table.find(PlantedCases.EXPERT)).probabilityTopK()).isGreaterThan(0.95);
+        RankUncertainty.Result uniform = RankUncertainty.of(wilson, new BetaPrior(1, 1), RankUncertainty.Settings.defaults(10, 42));
+        assertThat(uniform.of(table.find(PlantedCases.EXPERT)).probabilityTopK()).isLessThan(0.05);
+    }
+
+    @Test
     void auditOfARawShareListFlagsItsSmallSamplesAndNamesTheOverlooked() {
         Ranking raw = Ranker.rank(table, Rules.byName("raw-share", settings), EntryBar.NONE);
         List<String> promoted = new ArrayList<>();

@@ -31,9 +31,9 @@ class RankUncertaintyTest {
 
     @Test
     void topOneOfTwoMatchesTheIntegralOfOneDensityAgainstTheOtherCdf() {
-        // Raw share draws Beta(1 + H, 1 + T - H): A ~ Beta(9, 3), B ~ Beta(7, 5).
+        // Raw share under a uniform population prior draws Beta(1 + H, 1 + T - H): A ~ Beta(9, 3), B ~ Beta(7, 5).
         Ranking r = Ranker.rank(table(new long[][] {{8, 10}, {6, 10}}), new RawShare(), EntryBar.NONE);
-        RankUncertainty.Result u = RankUncertainty.of(r, new RankUncertainty.Settings(1, 40_000, 7, 2, 0.05, 0.95));
+        RankUncertainty.Result u = RankUncertainty.of(r, UNIFORM, new RankUncertainty.Settings(1, 40_000, 7, 2, 0.05, 0.95));
         BetaDistribution a = new BetaDistribution(9, 3);
         BetaDistribution b = new BetaDistribution(7, 5);
         double exact = new RombergIntegrator(1e-10, 1e-12, 5, 20).integrate(1_000_000,
@@ -49,7 +49,7 @@ class RankUncertaintyTest {
     void topTwoOfThreeUnderAPriorMatchesOneMinusTheChanceOfBeingLast() {
         BetaPrior prior = new BetaPrior(2, 1.5);
         Ranking r = Ranker.rank(table(new long[][] {{3, 5}, {10, 12}, {1, 1}}), new BayesianAverage(prior), EntryBar.NONE);
-        RankUncertainty.Result u = RankUncertainty.of(r, new RankUncertainty.Settings(2, 40_000, 11, 3, 0.05, 0.95));
+        RankUncertainty.Result u = RankUncertainty.of(r, UNIFORM, new RankUncertainty.Settings(2, 40_000, 11, 3, 0.05, 0.95));
         BetaDistribution a = new BetaDistribution(5, 3.5);
         BetaDistribution b = new BetaDistribution(12, 3.5);
         BetaDistribution c = new BetaDistribution(3, 1.5);
@@ -95,10 +95,10 @@ class RankUncertaintyTest {
         }
         Ranking r = Ranker.rank(table(v), new RawShare(), EntryBar.NONE);
         RankUncertainty.Settings s = new RankUncertainty.Settings(10, 500, 99, 1, 0.05, 0.95);
-        RankUncertainty.Result one = RankUncertainty.of(r, s);
-        RankUncertainty.Result four = RankUncertainty.of(r, s.withThreads(4));
+        RankUncertainty.Result one = RankUncertainty.of(r, UNIFORM, s);
+        RankUncertainty.Result four = RankUncertainty.of(r, UNIFORM, s.withThreads(4));
         assertThat(four.bySlot()).isEqualTo(one.bySlot());
-        assertThat(RankUncertainty.of(r, new RankUncertainty.Settings(10, 500, 100, 1, 0.05, 0.95)).bySlot())
+        assertThat(RankUncertainty.of(r, UNIFORM, new RankUncertainty.Settings(10, 500, 100, 1, 0.05, 0.95)).bySlot())
                 .isNotEqualTo(one.bySlot());
     }
 
@@ -112,7 +112,7 @@ class RankUncertaintyTest {
             v[i] = i < 20 ? new long[] {990 + rng.nextInt(10), 1000} : new long[] {Math.round(t * (0.3 + 0.6 * rng.nextDouble())), t};
         }
         Ranking r = Ranker.rank(table(v), new RawShare(), EntryBar.NONE);
-        RankUncertainty.Result u = RankUncertainty.of(r, RankUncertainty.Settings.defaults(10, 1));
+        RankUncertainty.Result u = RankUncertainty.of(r, UNIFORM, RankUncertainty.Settings.defaults(10, 1));
         assertThat(u.pruned()).isGreaterThan(190_000);
         assertThat(u.kept() + u.pruned()).isEqualTo(u.ranked());
         assertThat(u.prunedExpectedEntrants()).isLessThan(u.pruned() * RankUncertainty.PRUNE_TAIL);
