@@ -62,6 +62,13 @@ final class SparkTallyCommand implements Callable<Integer> {
     @Override
     public Integer call() throws IOException {
         PrintWriter outw = spec.commandLine().getOut();
+        for (String local : new String[] {"--threads", "--memory", "--tmp"}) {
+            if (spec.commandLine().getParseResult().hasMatchedOption(local)) {
+                throw new IllegalArgumentException("spark-tally: " + local + " sets the local engine; on Spark, parallelism"
+                        + " comes from --master and --partitions and memory from spark-submit's --driver-memory and"
+                        + " --executor-memory (see docs/spark.md)");
+            }
+        }
         if (!sparkPresent()) {
             throw new IllegalStateException("spark-tally needs Apache Spark 4.0.x (Scala 2.13) on the class path, and the"
                     + " voteworth jar does not carry it: run it with spark-submit --class org.voteworth.cli.Main"

@@ -51,4 +51,13 @@ class SparkTallyCommandTest {
         assertThat(r.code()).isEqualTo(1);
         assertThat(r.out()).contains("needs Apache Spark 4.0.x").contains("spark-submit").doesNotContain("NoClassDefFoundError");
     }
+
+    @Test
+    void localEngineOptionsAreRefusedRatherThanIgnored() {
+        for (String[] option : new String[][] {{"--threads", "2"}, {"--memory", "64MB"}, {"--tmp", "tmp"}}) {
+            CliTest.Run r = CliTest.run("spark-tally", "demo-data", "--out", "unused-store", option[0], option[1]);
+            assertThat(r.code()).isNotZero();
+            assertThat(r.err()).contains(option[0] + " sets the local engine").contains("--partitions");
+        }
+    }
 }
