@@ -21,6 +21,9 @@ import org.voteworth.tally.TallyTable;
  * pruning of METHODS.md on a large table.
  */
 class RankUncertaintyTest {
+    /** Beta(1, 1): the population prior under which the draws are the textbook Beta(1 + H, 1 + T - H). */
+    private static final BetaPrior UNIFORM = new BetaPrior(1, 1);
+
     private static TallyTable table(long[][] votes) {
         TallyTable t = new TallyTable();
         for (int i = 0; i < votes.length; i++) {
