@@ -1,0 +1,77 @@
+package org.voteworth.store;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import org.apache.parquet.conf.PlainParquetConfiguration;
+import org.apache.parquet.filter2.compat.FilterCompat;
+import org.apache.parquet.hadoop.ParquetFileWriter;
+import org.apache.parquet.hadoop.ParquetReader;
+import org.apache.parquet.hadoop.ParquetWriter;
+import org.apache.parquet.hadoop.api.ReadSupport;
+import org.apache.parquet.hadoop.api.WriteSupport;
+import org.apache.parquet.hadoop.metadata.CompressionCodecName;
+import org.apache.parquet.io.LocalInputFile;
+import org.apache.parquet.io.LocalOutputFile;
+
+/** Opens the store's Parquet files on the local file system, without a Hadoop configuration. */
+final class ParquetFiles {
+    /**
+     * Row groups of about this many buffered bytes: some 64k reviews, so that a reviewer's rows lie
+     * in one or two groups and the min/max statistics of reviewer_id let a lookup skip the rest.
+     */
+    static final long ROW_GROUP_BYTES = 4L << 20;
+    /** Pages of at most this many rows: the column index then skips most of a row group as well. */
+    private static final int PAGE_ROWS = 4096;
+    private static final ZstdCodecs CODECS = new ZstdCodecs();
+
+    private ParquetFiles() {
+    }
+
+    static <T> ParquetWriter<T> writer(Path file, WriteSupport<T> support) throws IOException {
+        return new WriterBuilder<>(file, support).withConf(new PlainParquetConfiguration()).withCodecFactory(CODECS)
+                .withCompressionCodec(CompressionCodecName.ZSTD).withWriteMode(ParquetFileWriter.Mode.OVERWRITE)
+                .withRowGroupSize(ROW_GROUP_BYTES).withPageRowCountLimit(PAGE_ROWS).withPageWriteChecksumEnabled(true).build();
+    }
+
+    static <T> ParquetReader<T> reader(Path file, ReadSupport<T> support, FilterCompat.Filter filter) throws IOException {
+        return new ReaderBuilder<>(file, support).withCodecFactory(CODECS).withFilter(filter).usePageChecksumVerification(true).build();
+    }
+
+    private static final class WriterBuilder<T> extends ParquetWriter.Builder<T, WriterBuilder<T>> {
+        private final WriteSupport<T> support;
+
+        WriterBuilder(Path file, WriteSupport<T> support) {
+            super(new LocalOutputFile(file));
+            this.support = support;
+        }
+
+        @Override
+        protected WriterBuilder<T> self() {
+            return this;
+        }
+
+        @Override
+        protected WriteSupport<T> getWriteSupport(org.apache.hadoop.conf.Configuration conf) {
+            return support;
+        }
+
+        @Override
+        protected WriteSupport<T> getWriteSupport(org.apache.parquet.conf.ParquetConfiguration conf) {
+            return support;
+        }
+    }
+
+    private static final class ReaderBuilder<T> extends ParquetReader.Builder<T> {
+        private final ReadSupport<T> support;
+
+        ReaderBuilder(Path file, ReadSupport<T> support) {
+            super(new LocalInputFile(file), new PlainParquetConfiguration());
+            this.support = support;
+        }
+
+        @Override
+        protected ReadSupport<T> getReadSupport() {
+            return support;
+        }
+    }
+}
