@@ -153,7 +153,7 @@ public final class ProfileWriter {
                         .array("busiest_days", p.busiestDays(), (d, day) -> d
                                 .field("day", day.day().toString())
                                 .field("reviews", day.reviews()))
-                        .array("reviews", p.reviews(), (r, rev) -> r
+                        .array("review_list", p.reviews(), (r, rev) -> r
                                 .field("date", date(rev.epochDay()))
                                 .field("category", rev.category())
                                 .field("review", rev.review())
