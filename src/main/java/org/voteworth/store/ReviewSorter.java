@@ -60,7 +60,7 @@ final class ReviewSorter implements AutoCloseable {
     }
 
     private synchronized long perBuffer() {
-        return Math.max(1 << 20, budget / Math.max(1, buffers.size()));
+        return Math.max(64 << 10, budget / Math.max(1, buffers.size()));
     }
 
     private synchronized int nextRun() {

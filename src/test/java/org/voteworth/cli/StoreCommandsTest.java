@@ -109,8 +109,8 @@ class StoreCommandsTest {
     void threadsAndTheMemoryBudgetDoNotChangeTheStore() throws IOException {
         Path tmp = Files.createDirectories(dir.resolve("tmp-spill"));
         Path small = dir.resolve("store-small-memory");
-        out("tally", first.toString(), second.toString(), "--store", small.toString(), "--threads", "3", "--memory", "200KB",
-                "--tmp", tmp.toString(), "--quiet");
+        assertThat(out("tally", first.toString(), second.toString(), "--store", small.toString(), "--threads", "3", "--memory",
+                "200KB", "--tmp", tmp.toString(), "--quiet")).containsPattern("[0-9]+ sorted runs spilled under --memory");
         Path one = dir.resolve("store-one-thread");
         out("tally", first.toString(), second.toString(), "--store", one.toString(), "--threads", "1", "--quiet");
         List<StoredReview> expected = reviews(Store.open(store));
