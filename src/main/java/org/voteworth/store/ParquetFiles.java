@@ -2,6 +2,7 @@ package org.voteworth.store;
 
 import java.io.IOException;
 import java.nio.file.Path;
+import java.util.List;
 import org.apache.parquet.conf.PlainParquetConfiguration;
 import org.apache.parquet.filter2.compat.FilterCompat;
 import org.apache.parquet.hadoop.ParquetFileWriter;
@@ -21,20 +22,27 @@ final class ParquetFiles {
      */
     static final long ROW_GROUP_BYTES = 4L << 20;
     /** Pages of at most this many rows: the column index then skips most of a row group as well. */
-    private static final int PAGE_ROWS = 4096;
+    private static final int PAGE_ROWS = 2048;
     private static final ZstdCodecs CODECS = new ZstdCodecs();
 
     private ParquetFiles() {
     }
 
     static <T> ParquetWriter<T> writer(Path file, WriteSupport<T> support) throws IOException {
-        return new WriterBuilder<>(file, support).withConf(new PlainParquetConfiguration()).withCodecFactory(CODECS)
+        WriterBuilder<T> b = new WriterBuilder<>(file, support);
+        // Ids are nearly all distinct: a dictionary would only be built to be dropped. Categories and files keep theirs.
+        for (String column : List.of("reviewer_id", "review_id", "item_id")) {
+            b.withDictionaryEncoding(column, false);
+        }
+        return b.withConf(new PlainParquetConfiguration()).withCodecFactory(CODECS)
                 .withCompressionCodec(CompressionCodecName.ZSTD).withWriteMode(ParquetFileWriter.Mode.OVERWRITE)
                 .withRowGroupSize(ROW_GROUP_BYTES).withPageRowCountLimit(PAGE_ROWS).withPageWriteChecksumEnabled(true).build();
     }
 
     static <T> ParquetReader<T> reader(Path file, ReadSupport<T> support, FilterCompat.Filter filter) throws IOException {
-        return new ReaderBuilder<>(file, support).withCodecFactory(CODECS).withFilter(filter).usePageChecksumVerification(true).build();
+        return new ReaderBuilder<>(file, support).withCodecFactory(CODECS).withFilter(filter).usePageChecksumVerification(true)
+                // Row groups and pages are skipped by statistics; rows of other reviewers are skipped by the read support.
+                .useRecordFilter(false).build();
     }
 
     private static final class WriterBuilder<T> extends ParquetWriter.Builder<T, WriterBuilder<T>> {

@@ -136,8 +136,24 @@ final class ReviewColumns {
         }
     }
 
-    /** Reads rows back as {@link StoredReview} values. */
+    /** What {@link Reading} gives for a row of another reviewer than the one wanted (it does not decode the rest). */
+    static final StoredReview SKIPPED = new StoredReview("", "", "", "", ReviewRow.ABSENT, 0, 0, ReviewRow.ABSENT,
+            ReviewRow.ABSENT, ReviewRow.NO_DATE, "", 0);
+
+    /** Reads rows back as {@link StoredReview} values: all of them, or those of one reviewer (the others as {@link #SKIPPED}). */
     static final class Reading extends ReadSupport<StoredReview> {
+        private final Binary wanted;
+
+        /** Every row. */
+        Reading() {
+            this(null);
+        }
+
+        /** Rows of reviewer {@code wanted} (UTF-8), or every row when null. */
+        Reading(Binary wanted) {
+            this.wanted = wanted;
+        }
+
         @Override
         public ReadContext init(InitContext context) {
             return new ReadContext(SCHEMA);
@@ -147,14 +163,14 @@ final class ReviewColumns {
         public RecordMaterializer<StoredReview> prepareForRead(org.apache.hadoop.conf.Configuration configuration,
                                                                Map<String, String> keyValueMetaData, MessageType fileSchema,
                                                                ReadContext readContext) {
-            return new Materializer();
+            return new Materializer(wanted);
         }
 
         @Override
         public RecordMaterializer<StoredReview> prepareForRead(ParquetConfiguration configuration,
                                                                Map<String, String> keyValueMetaData, MessageType fileSchema,
                                                                ReadContext readContext) {
-            return new Materializer();
+            return new Materializer(wanted);
         }
     }
 
@@ -162,6 +178,8 @@ final class ReviewColumns {
         private final String[] text = new String[12];
         private final long[] num = new long[12];
         private final Converter[] columns = new Converter[12];
+        private final Binary wanted;
+        private boolean match;
         private StoredReview current;
         private final GroupConverter root = new GroupConverter() {
             @Override
@@ -180,18 +198,25 @@ final class ReviewColumns {
 
             @Override
             public void end() {
-                current = new StoredReview(text[0], text[1], text[2], text[3], (int) num[4], num[5], num[6], (int) num[7],
+                current = !match ? SKIPPED : new StoredReview(text[0], text[1], text[2], text[3], (int) num[4], num[5], num[6], (int) num[7],
                         (int) num[8], (int) num[9], text[10], num[11]);
             }
         };
 
-        Materializer() {
+        Materializer(Binary wanted) {
+            this.wanted = wanted;
+            // reviewer_id comes first in every row: the rest of another reviewer's row is not decoded.
             for (int i = 0; i < columns.length; i++) {
                 int k = i;
                 columns[i] = new PrimitiveConverter() {
                     @Override
                     public void addBinary(Binary value) {
-                        text[k] = value.toStringUsingUTF8();
+                        if (k == 0) {
+                            match = Materializer.this.wanted == null || Materializer.this.wanted.equals(value);
+                        }
+                        if (match) {
+                            text[k] = value.toStringUsingUTF8();
+                        }
                     }
 
                     @Override

@@ -150,6 +150,20 @@ final class ReviewRecord {
         return (long) LONG.get(b, tail + 15);
     }
 
+    /**
+     * The part (high 16 bits) and the reviewer id's first six bytes (zero-padded): compared as
+     * unsigned numbers, two records' keys are ordered as the records are, or equal.
+     */
+    static long prefixKey(byte[] b, int at) {
+        long k = (long) part(b, at) << 48;
+        int r = at + REVIEWER;
+        int len = idLength(b, r);
+        for (int i = 0; i < 6; i++) {
+            k |= (long) (i < len ? b[r + 2 + i] & 0xFF : 0) << (40 - 8 * i);
+        }
+        return k;
+    }
+
     /** The store's order of two records. */
     static int compare(byte[] a, int ao, byte[] b, int bo) {
         int c = Integer.compare(part(a, ao), part(b, bo));

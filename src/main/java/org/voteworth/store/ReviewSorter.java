@@ -142,8 +142,7 @@ final class ReviewSorter implements AutoCloseable {
             if (count == 0) {
                 return;
             }
-            int[] order = Arrays.copyOf(offsets, count);
-            sort(order, arena);
+            int[] order = sorted(offsets, count, arena);
             int run = nextRun();
             DataOutputStream out = null;
             int openPart = -1;
@@ -181,18 +180,38 @@ final class ReviewSorter implements AutoCloseable {
         return tmp.resolve(String.format(Locale.ROOT, "run-%06d-p%05d.bin", run, part));
     }
 
-    /** Merge sort of record offsets by {@link ReviewRecord#compare}. */
-    static void sort(int[] a, byte[] b) {
-        int[] tmp = new int[a.length];
-        sort(a, tmp, 0, a.length, b);
+    /**
+     * The offsets of the first {@code count} records of {@code b}, in {@link ReviewRecord#compare}
+     * order: a merge sort on a prefix key (part and the reviewer id's first six bytes) that falls back
+     * to the whole comparison only when the keys are equal.
+     */
+    static int[] sorted(int[] offsets, int count, byte[] b) {
+        long[] key = new long[count];
+        for (int i = 0; i < count; i++) {
+            key[i] = ReviewRecord.prefixKey(b, offsets[i]);
+        }
+        int[] a = new int[count];
+        for (int i = 0; i < count; i++) {
+            a[i] = i;
+        }
+        sort(a, new int[count], 0, count, key, offsets, b);
+        for (int i = 0; i < count; i++) {
+            a[i] = offsets[a[i]];
+        }
+        return a;
     }
 
-    private static void sort(int[] a, int[] t, int lo, int hi, byte[] b) {
+    private static int compare(int x, int y, long[] key, int[] off, byte[] b) {
+        int c = Long.compareUnsigned(key[x], key[y]);
+        return c != 0 ? c : ReviewRecord.compare(b, off[x], b, off[y]);
+    }
+
+    private static void sort(int[] a, int[] t, int lo, int hi, long[] key, int[] off, byte[] b) {
         if (hi - lo <= 16) {
             for (int i = lo + 1; i < hi; i++) {
                 int x = a[i];
                 int j = i - 1;
-                while (j >= lo && ReviewRecord.compare(b, a[j], b, x) > 0) {
+                while (j >= lo && compare(a[j], x, key, off, b) > 0) {
                     a[j + 1] = a[j];
                     j--;
                 }
@@ -201,16 +220,16 @@ final class ReviewSorter implements AutoCloseable {
             return;
         }
         int mid = (lo + hi) >>> 1;
-        sort(a, t, lo, mid, b);
-        sort(a, t, mid, hi, b);
-        if (ReviewRecord.compare(b, a[mid - 1], b, a[mid]) <= 0) {
+        sort(a, t, lo, mid, key, off, b);
+        sort(a, t, mid, hi, key, off, b);
+        if (compare(a[mid - 1], a[mid], key, off, b) <= 0) {
             return;
         }
         System.arraycopy(a, lo, t, lo, hi - lo);
         int i = lo;
         int j = mid;
         for (int k = lo; k < hi; k++) {
-            if (j >= hi || (i < mid && ReviewRecord.compare(b, t[i], b, t[j]) <= 0)) {
+            if (j >= hi || (i < mid && compare(t[i], t[j], key, off, b) <= 0)) {
                 a[k] = t[i++];
             } else {
                 a[k] = t[j++];

@@ -157,14 +157,23 @@ public final class Store {
     /** One reviewer's tally, read through the row group that can hold it. */
     public Optional<ReviewerTally> reviewer(String id) throws IOException {
         List<ReviewerTally> found = new ArrayList<>(1);
-        read(reviewersFile(), new ReviewerColumns.Reading(), byReviewer(id), found::add);
+        read(reviewersFile(), new ReviewerColumns.Reading(), byReviewer(id), t -> {
+            if (t.id().equals(id)) {
+                found.add(t);
+            }
+        });
         return found.stream().findFirst();
     }
 
     /** One reviewer's reviews in store order (date, then input order), from the one part that holds them. */
     public List<StoredReview> reviewsOf(String id) throws IOException {
         List<StoredReview> found = new ArrayList<>();
-        read(part(ReviewerHash.part(id, manifest.reviewParts())), new ReviewColumns.Reading(), byReviewer(id), found::add);
+        read(part(ReviewerHash.part(id, manifest.reviewParts())), new ReviewColumns.Reading(Binary.fromString(id)),
+                byReviewer(id), r -> {
+                    if (r != ReviewColumns.SKIPPED) {
+                        found.add(r);
+                    }
+                });
         return found;
     }
 
