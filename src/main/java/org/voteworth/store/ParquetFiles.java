@@ -3,16 +3,22 @@ package org.voteworth.store;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.Map;
+import java.util.function.Supplier;
 import org.apache.parquet.conf.PlainParquetConfiguration;
 import org.apache.parquet.filter2.compat.FilterCompat;
 import org.apache.parquet.hadoop.ParquetFileWriter;
 import org.apache.parquet.hadoop.ParquetReader;
 import org.apache.parquet.hadoop.ParquetWriter;
+import org.apache.parquet.hadoop.api.InitContext;
 import org.apache.parquet.hadoop.api.ReadSupport;
 import org.apache.parquet.hadoop.api.WriteSupport;
 import org.apache.parquet.hadoop.metadata.CompressionCodecName;
 import org.apache.parquet.io.LocalInputFile;
 import org.apache.parquet.io.LocalOutputFile;
+import org.apache.parquet.io.api.RecordConsumer;
+import org.apache.parquet.io.api.RecordMaterializer;
+import org.apache.parquet.schema.MessageType;
 
 /** Opens the store's Parquet files on the local file system, without a Hadoop configuration. */
 final class ParquetFiles {
@@ -43,6 +49,61 @@ final class ParquetFiles {
         return new ReaderBuilder<>(file, support).withCodecFactory(CODECS).withFilter(filter).usePageChecksumVerification(true)
                 // Row groups and pages are skipped by statistics; rows of other reviewers are skipped by the read support.
                 .useRecordFilter(false).build();
+    }
+
+    /** Writes rows of one schema; a subclass emits each record through {@link #rc}. */
+    abstract static class Writing<T> extends WriteSupport<T> {
+        private final MessageType schema;
+        RecordConsumer rc;
+
+        Writing(MessageType schema) {
+            this.schema = schema;
+        }
+
+        @Override
+        public WriteContext init(org.apache.hadoop.conf.Configuration configuration) {
+            return new WriteContext(schema, Map.of());
+        }
+
+        @Override
+        public WriteContext init(org.apache.parquet.conf.ParquetConfiguration configuration) {
+            return new WriteContext(schema, Map.of());
+        }
+
+        @Override
+        public void prepareForWrite(RecordConsumer recordConsumer) {
+            rc = recordConsumer;
+        }
+    }
+
+    /** Reads rows of one schema into what a fresh materializer from {@code materializer} builds. */
+    static final class Reading<T> extends ReadSupport<T> {
+        private final MessageType schema;
+        private final Supplier<RecordMaterializer<T>> materializer;
+
+        Reading(MessageType schema, Supplier<RecordMaterializer<T>> materializer) {
+            this.schema = schema;
+            this.materializer = materializer;
+        }
+
+        @Override
+        public ReadContext init(InitContext context) {
+            return new ReadContext(schema);
+        }
+
+        @Override
+        public RecordMaterializer<T> prepareForRead(org.apache.hadoop.conf.Configuration configuration,
+                                                    Map<String, String> keyValueMetaData, MessageType fileSchema,
+                                                    ReadContext readContext) {
+            return materializer.get();
+        }
+
+        @Override
+        public RecordMaterializer<T> prepareForRead(org.apache.parquet.conf.ParquetConfiguration configuration,
+                                                    Map<String, String> keyValueMetaData, MessageType fileSchema,
+                                                    ReadContext readContext) {
+            return materializer.get();
+        }
     }
 
     private static final class WriterBuilder<T> extends ParquetWriter.Builder<T, WriterBuilder<T>> {

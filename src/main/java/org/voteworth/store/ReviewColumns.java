@@ -1,16 +1,11 @@
 package org.voteworth.store;
 
 import java.util.List;
-import java.util.Map;
-import org.apache.parquet.conf.ParquetConfiguration;
-import org.apache.parquet.hadoop.api.InitContext;
 import org.apache.parquet.hadoop.api.ReadSupport;
-import org.apache.parquet.hadoop.api.WriteSupport;
 import org.apache.parquet.io.api.Binary;
 import org.apache.parquet.io.api.Converter;
 import org.apache.parquet.io.api.GroupConverter;
 import org.apache.parquet.io.api.PrimitiveConverter;
-import org.apache.parquet.io.api.RecordConsumer;
 import org.apache.parquet.io.api.RecordMaterializer;
 import org.apache.parquet.schema.MessageType;
 import org.apache.parquet.schema.MessageTypeParser;
@@ -44,31 +39,16 @@ final class ReviewColumns {
     }
 
     /** Writes records; category and file numbers become names, piece lines become file lines. */
-    static final class Writing extends WriteSupport<Cursor> {
+    static final class Writing extends ParquetFiles.Writing<Cursor> {
         private final List<String> categories;
         private final List<String> files;
         private final LineBases lines;
-        private RecordConsumer rc;
 
         Writing(List<String> categories, List<String> files, LineBases lines) {
+            super(SCHEMA);
             this.categories = categories;
             this.files = files;
             this.lines = lines;
-        }
-
-        @Override
-        public WriteContext init(org.apache.hadoop.conf.Configuration configuration) {
-            return new WriteContext(SCHEMA, Map.of());
-        }
-
-        @Override
-        public WriteContext init(ParquetConfiguration configuration) {
-            return new WriteContext(SCHEMA, Map.of());
-        }
-
-        @Override
-        public void prepareForWrite(RecordConsumer recordConsumer) {
-            rc = recordConsumer;
         }
 
         @Override
@@ -136,42 +116,13 @@ final class ReviewColumns {
         }
     }
 
-    /** What {@link Reading} gives for a row of another reviewer than the one wanted (it does not decode the rest). */
+    /** What {@link #reading} gives for a row of another reviewer than the one wanted (it does not decode the rest). */
     static final StoredReview SKIPPED = new StoredReview("", "", "", "", ReviewRow.ABSENT, 0, 0, ReviewRow.ABSENT,
             ReviewRow.ABSENT, ReviewRow.NO_DATE, "", 0);
 
-    /** Reads rows back as {@link StoredReview} values: all of them, or those of one reviewer (the others as {@link #SKIPPED}). */
-    static final class Reading extends ReadSupport<StoredReview> {
-        private final Binary wanted;
-
-        /** Every row. */
-        Reading() {
-            this(null);
-        }
-
-        /** Rows of reviewer {@code wanted} (UTF-8), or every row when null. */
-        Reading(Binary wanted) {
-            this.wanted = wanted;
-        }
-
-        @Override
-        public ReadContext init(InitContext context) {
-            return new ReadContext(SCHEMA);
-        }
-
-        @Override
-        public RecordMaterializer<StoredReview> prepareForRead(org.apache.hadoop.conf.Configuration configuration,
-                                                               Map<String, String> keyValueMetaData, MessageType fileSchema,
-                                                               ReadContext readContext) {
-            return new Materializer(wanted);
-        }
-
-        @Override
-        public RecordMaterializer<StoredReview> prepareForRead(ParquetConfiguration configuration,
-                                                               Map<String, String> keyValueMetaData, MessageType fileSchema,
-                                                               ReadContext readContext) {
-            return new Materializer(wanted);
-        }
+    /** Reads rows back as {@link StoredReview} values: all of them, or those of reviewer {@code wanted} (UTF-8) and the others as {@link #SKIPPED}. */
+    static ReadSupport<StoredReview> reading(Binary wanted) {
+        return new ParquetFiles.Reading<>(SCHEMA, () -> new Materializer(wanted));
     }
 
     private static final class Materializer extends RecordMaterializer<StoredReview> {

@@ -238,26 +238,29 @@ final class ReviewSorter implements AutoCloseable {
     }
 
     /** A sorted stream of records: a run file, or a part already in the store. */
-    private interface Source extends AutoCloseable {
-        /** Loads the next record into {@link #record()}; false at the end. */
-        boolean advance() throws IOException;
+    private abstract static class Source implements AutoCloseable {
+        byte[] rec = new byte[256];
 
-        byte[] record();
+        /** Loads the next record into {@link #record()}; false at the end. */
+        abstract boolean advance() throws IOException;
+
+        final byte[] record() {
+            return rec;
+        }
 
         @Override
-        void close() throws IOException;
+        public abstract void close() throws IOException;
     }
 
-    private static final class RunSource implements Source {
+    private static final class RunSource extends Source {
         private final DataInputStream in;
-        private byte[] rec = new byte[256];
 
         RunSource(Path f) throws IOException {
             in = new DataInputStream(new BufferedInputStream(Files.newInputStream(f), IO_BUFFER));
         }
 
         @Override
-        public boolean advance() throws IOException {
+        boolean advance() throws IOException {
             int len = in.readInt();
             if (len == 0) {
                 return false;
@@ -270,34 +273,28 @@ final class ReviewSorter implements AutoCloseable {
         }
 
         @Override
-        public byte[] record() {
-            return rec;
-        }
-
-        @Override
         public void close() throws IOException {
             in.close();
         }
     }
 
     /** The rows of a part already in the store, as records (file numbers from the manifest, lines as stored). */
-    private final class StoredSource implements Source {
+    private final class StoredSource extends Source {
         private final ParquetReader<StoredReview> reader;
         private final int part;
         private final java.util.function.ToIntFunction<String> fileNumber;
         private final Path path;
-        private byte[] rec = new byte[256];
         private byte[] ids = new byte[256];
 
         StoredSource(Path path, int part, java.util.function.ToIntFunction<String> fileNumber) throws IOException {
             this.path = path;
-            this.reader = ParquetFiles.reader(path, new ReviewColumns.Reading(), org.apache.parquet.filter2.compat.FilterCompat.NOOP);
+            this.reader = ParquetFiles.reader(path, ReviewColumns.reading(null), org.apache.parquet.filter2.compat.FilterCompat.NOOP);
             this.part = part;
             this.fileNumber = fileNumber;
         }
 
         @Override
-        public boolean advance() throws IOException {
+        boolean advance() throws IOException {
             StoredReview r = Store.read(reader, path);
             if (r == null) {
                 return false;
@@ -320,11 +317,6 @@ final class ReviewSorter implements AutoCloseable {
                     b.length, a.length + b.length, c.length, categories.id(cat, 0, cat.length), r.stars(), r.verified(),
                     r.incentivised(), r.helpfulVotes(), r.totalVotes(), rec, 0, path.toString());
             return true;
-        }
-
-        @Override
-        public byte[] record() {
-            return rec;
         }
 
         @Override

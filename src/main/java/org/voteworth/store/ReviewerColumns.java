@@ -1,16 +1,11 @@
 package org.voteworth.store;
 
-import java.util.Map;
 import java.util.TreeMap;
-import org.apache.parquet.conf.ParquetConfiguration;
-import org.apache.parquet.hadoop.api.InitContext;
 import org.apache.parquet.hadoop.api.ReadSupport;
-import org.apache.parquet.hadoop.api.WriteSupport;
 import org.apache.parquet.io.api.Binary;
 import org.apache.parquet.io.api.Converter;
 import org.apache.parquet.io.api.GroupConverter;
 import org.apache.parquet.io.api.PrimitiveConverter;
-import org.apache.parquet.io.api.RecordConsumer;
 import org.apache.parquet.io.api.RecordMaterializer;
 import org.apache.parquet.schema.MessageType;
 import org.apache.parquet.schema.MessageTypeParser;
@@ -61,22 +56,9 @@ final class ReviewerColumns {
                 st.four(), st.five()};
     }
 
-    static final class Writing extends WriteSupport<ReviewerTally> {
-        private RecordConsumer rc;
-
-        @Override
-        public WriteContext init(org.apache.hadoop.conf.Configuration configuration) {
-            return new WriteContext(SCHEMA, Map.of());
-        }
-
-        @Override
-        public WriteContext init(ParquetConfiguration configuration) {
-            return new WriteContext(SCHEMA, Map.of());
-        }
-
-        @Override
-        public void prepareForWrite(RecordConsumer recordConsumer) {
-            rc = recordConsumer;
+    static final class Writing extends ParquetFiles.Writing<ReviewerTally> {
+        Writing() {
+            super(SCHEMA);
         }
 
         @Override
@@ -128,25 +110,8 @@ final class ReviewerColumns {
         }
     }
 
-    static final class Reading extends ReadSupport<ReviewerTally> {
-        @Override
-        public ReadContext init(InitContext context) {
-            return new ReadContext(SCHEMA);
-        }
-
-        @Override
-        public RecordMaterializer<ReviewerTally> prepareForRead(org.apache.hadoop.conf.Configuration configuration,
-                                                                Map<String, String> keyValueMetaData, MessageType fileSchema,
-                                                                ReadContext readContext) {
-            return new Materializer();
-        }
-
-        @Override
-        public RecordMaterializer<ReviewerTally> prepareForRead(ParquetConfiguration configuration,
-                                                                Map<String, String> keyValueMetaData, MessageType fileSchema,
-                                                                ReadContext readContext) {
-            return new Materializer();
-        }
+    static ReadSupport<ReviewerTally> reading() {
+        return new ParquetFiles.Reading<>(SCHEMA, Materializer::new);
     }
 
     private static final class Materializer extends RecordMaterializer<ReviewerTally> {

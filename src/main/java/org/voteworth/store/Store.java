@@ -141,7 +141,7 @@ public final class Store {
 
     /** Every reviewer's tally, in id order. */
     public void forEachReviewer(Consumer<ReviewerTally> each) throws IOException {
-        read(reviewersFile(), new ReviewerColumns.Reading(), FilterCompat.NOOP, each);
+        read(reviewersFile(), ReviewerColumns.reading(), FilterCompat.NOOP, each);
     }
 
     /** The reviewer table, as {@code tally} built it. */
@@ -157,7 +157,7 @@ public final class Store {
     /** One reviewer's tally, read through the row group that can hold it. */
     public Optional<ReviewerTally> reviewer(String id) throws IOException {
         List<ReviewerTally> found = new ArrayList<>(1);
-        read(reviewersFile(), new ReviewerColumns.Reading(), byReviewer(id), t -> {
+        read(reviewersFile(), ReviewerColumns.reading(), byReviewer(id), t -> {
             if (t.id().equals(id)) {
                 found.add(t);
             }
@@ -168,7 +168,7 @@ public final class Store {
     /** One reviewer's reviews in store order (date, then input order), from the one part that holds them. */
     public List<StoredReview> reviewsOf(String id) throws IOException {
         List<StoredReview> found = new ArrayList<>();
-        read(part(ReviewerHash.part(id, manifest.reviewParts())), new ReviewColumns.Reading(Binary.fromString(id)),
+        read(part(ReviewerHash.part(id, manifest.reviewParts())), ReviewColumns.reading(Binary.fromString(id)),
                 byReviewer(id), r -> {
                     if (r != ReviewColumns.SKIPPED) {
                         found.add(r);
@@ -184,7 +184,7 @@ public final class Store {
     /** Every review, part by part (each part in reviewer order). */
     public void forEachReview(Consumer<StoredReview> each) throws IOException {
         for (int p = 0; p < manifest.reviewParts(); p++) {
-            read(part(p), new ReviewColumns.Reading(), FilterCompat.NOOP, each);
+            read(part(p), ReviewColumns.reading(null), FilterCompat.NOOP, each);
         }
     }
 
