@@ -14,7 +14,6 @@ import org.apache.parquet.hadoop.api.InitContext;
 import org.apache.parquet.hadoop.api.ReadSupport;
 import org.apache.parquet.hadoop.api.WriteSupport;
 import org.apache.parquet.hadoop.metadata.CompressionCodecName;
-import org.apache.parquet.io.LocalInputFile;
 import org.apache.parquet.io.LocalOutputFile;
 import org.apache.parquet.io.api.RecordConsumer;
 import org.apache.parquet.io.api.RecordMaterializer;
@@ -133,8 +132,8 @@ final class ParquetFiles {
     private static final class ReaderBuilder<T> extends ParquetReader.Builder<T> {
         private final ReadSupport<T> support;
 
-        ReaderBuilder(Path file, ReadSupport<T> support) {
-            super(new LocalInputFile(file), new PlainParquetConfiguration());
+        ReaderBuilder(Path file, ReadSupport<T> support) throws IOException {
+            super(MappedInputFile.of(file), new PlainParquetConfiguration());
             this.support = support;
         }
 

@@ -20,7 +20,6 @@ import org.apache.parquet.filter2.compat.FilterCompat;
 import org.apache.parquet.filter2.predicate.FilterApi;
 import org.apache.parquet.hadoop.ParquetFileReader;
 import org.apache.parquet.hadoop.ParquetReader;
-import org.apache.parquet.io.LocalInputFile;
 import org.apache.parquet.io.api.Binary;
 import org.voteworth.source.DumpFile;
 import org.voteworth.source.FileReport;
@@ -87,7 +86,7 @@ public final class Store {
         if (!Files.isRegularFile(file)) {
             throw new IOException(file + ": missing from the store; rebuild it with 'voteworth tally --store'");
         }
-        try (ParquetFileReader r = ParquetFileReader.open(new LocalInputFile(file),
+        try (ParquetFileReader r = ParquetFileReader.open(MappedInputFile.of(file),
                 ParquetReadOptions.builder(new PlainParquetConfiguration()).withCodecFactory(new ZstdCodecs()).build())) {
             return r.getRecordCount();
         } catch (IOException | RuntimeException e) {
