@@ -14,6 +14,7 @@ import org.voteworth.source.CategoryFromName;
 import org.voteworth.store.Store;
 import org.voteworth.store.StoreManifest;
 import org.voteworth.store.StoreWriter;
+import org.voteworth.tally.OverviewCounts;
 import org.voteworth.tally.TallyUnit;
 
 /** {@code voteworth tally --store DIR [--append]}: the tally and the columnar store in one scan. */
@@ -39,8 +40,11 @@ final class StoreTally {
         String pattern = d.categoryPattern != null ? d.categoryPattern : CategoryFromName.DEFAULT_PATTERN;
         Files.createDirectories(d.tmpDir());
         Path tmp = Files.createTempDirectory(d.tmpDir(), "voteworth-store-");
-        try (StoreWriter w = c.append ? StoreWriter.append(c.store, mapping, pattern, d.memoryBytes())
-                : StoreWriter.create(c.store, mapping, pattern, d.memoryBytes());
+        // The review sort buffers take a quarter of --memory on top of the tallies' budget (the launcher's heap is
+        // the budget plus 128 MiB).
+        long buffers = Math.max(1, d.memoryBytes() / 4);
+        try (StoreWriter w = c.append ? StoreWriter.append(c.store, mapping, pattern, buffers)
+                : StoreWriter.create(c.store, mapping, pattern, buffers);
              TallyRun.TempCleanup cleanup = TallyRun.TempCleanup.register(List.of(tmp, w.tempFolder()))) {
             Path table = tmp.resolve("reviewers.csv");
             Path rejects = tmp.resolve("rejects.tsv");
@@ -65,6 +69,20 @@ final class StoreTally {
         } finally {
             TallyRun.deleteTree(tmp);
         }
+    }
+
+    /**
+     * The data set overview of a store, counted from its reviews and reviewer table (never the
+     * dump), with the store's reconciliation.
+     */
+    static TallyRun.Written overview(Path dir) throws IOException {
+        long start = System.nanoTime();
+        Store s = Store.open(dir);
+        OverviewCounts counts = new OverviewCounts();
+        s.scan(counts);
+        s.forEachReviewer(counts::addReviewer);
+        return new TallyRun.Written(s.manifest().reviewers(), TallyUnit.REVIEWER, s.summary(), s.rejectsFile(),
+                (System.nanoTime() - start) / 1e9, sizeOf(dir), 0, counts);
     }
 
     /** Bytes of the store's files (not of hidden temporary ones). */

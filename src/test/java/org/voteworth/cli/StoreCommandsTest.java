@@ -92,6 +92,8 @@ class StoreCommandsTest {
                         "csv", "--quiet", "--rejects", rejects));
         assertThat(out("sweep", store.toString(), "--format", "csv", "--quiet"))
                 .isEqualTo(out("sweep", first.toString(), second.toString(), "--format", "csv", "--quiet", "--rejects", rejects));
+        assertThat(out("overview", store.toString(), "--format", "csv", "--quiet"))
+                .isEqualTo(out("overview", first.toString(), second.toString(), "--format", "csv", "--quiet", "--rejects", rejects));
         assertThat(out("compare", store.toString(), "--format", "csv", "--quiet"))
                 .isEqualTo(out("compare", first.toString(), second.toString(), "--format", "csv", "--quiet", "--rejects", rejects));
 
