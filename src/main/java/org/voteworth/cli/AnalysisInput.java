@@ -39,6 +39,20 @@ final class AnalysisInput {
     }
 
     /**
+     * As {@link #read}, with the data set overview filled for a store too (a dump's scan counts it on
+     * the way; a store's reviews are read once more for it, so only the commands that show it ask).
+     */
+    static TallyRun.Result readWithOverview(DumpOptions o, ScoringOptions s, TallyUnit unit, Path rejectsFile, boolean quiet,
+                                            PrintWriter err) throws IOException {
+        TallyRun.Result t = read(o, s, unit, rejectsFile, quiet, err);
+        if (o.inputs.size() == 1 && Store.isStore(Path.of(o.inputs.get(0)))) {
+            TallyRun.Written w = StoreTally.overview(Path.of(o.inputs.get(0)));
+            return new TallyRun.Result(t.table(), t.summary(), t.rejectsFile(), t.seconds() + w.seconds(), t.bytes(), w.overview());
+        }
+        return t;
+    }
+
+    /**
      * Reads a store written by {@code tally --store} and never the dump: its reviewer table, or, for
      * a vote cap or the review unit, its reviews tallied again. The reconciliation is the store's.
      */
