@@ -3,6 +3,7 @@ package org.voteworth.cli;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import org.voteworth.store.Store;
 import org.voteworth.tally.TallyTable;
 import org.voteworth.tally.TallyUnit;
 import org.voteworth.tally.VoteCap;
@@ -10,7 +11,8 @@ import org.voteworth.tally.VoteCap;
 /**
  * Reads the input of a ranking command: {@link TallyRun#run} as it is, or, with
  * {@code --cap-votes}, the same scan with every row passed through {@link VoteCap} first (the cap
- * needs each review's votes, so it cannot be applied to a reviewer table read back from CSV).
+ * needs each review's votes, so it cannot be applied to a reviewer table read back from CSV). A
+ * store folder written by {@code tally --store} is read instead of any dump.
  */
 final class AnalysisInput {
     private AnalysisInput() {
@@ -30,6 +32,45 @@ final class AnalysisInput {
 
     static TallyRun.Result read(DumpOptions o, ScoringOptions s, TallyUnit unit, Path rejectsFile, boolean quiet,
                                 PrintWriter err) throws IOException {
+        if (o.inputs.size() == 1 && Store.isStore(Path.of(o.inputs.get(0)))) {
+            return fromStore(Path.of(o.inputs.get(0)), unit, s.capVotes);
+        }
         return TallyRun.run(o, unit, rejectsFile, quiet, err, s.capVotes);
+    }
+
+    /**
+     * As {@link #read}, with the data set overview filled for a store too (a dump's scan counts it on
+     * the way; a store's reviews are read once more for it, so only the commands that show it ask).
+     */
+    static TallyRun.Result readWithOverview(DumpOptions o, ScoringOptions s, TallyUnit unit, Path rejectsFile, boolean quiet,
+                                            PrintWriter err) throws IOException {
+        TallyRun.Result t = read(o, s, unit, rejectsFile, quiet, err);
+        if (o.inputs.size() == 1 && Store.isStore(Path.of(o.inputs.get(0)))) {
+            TallyRun.Written w = StoreTally.overview(Path.of(o.inputs.get(0)));
+            return new TallyRun.Result(t.table(), t.summary(), t.rejectsFile(), t.seconds() + w.seconds(), t.bytes(), w.overview());
+        }
+        return t;
+    }
+
+    /**
+     * Reads a store written by {@code tally --store} and never the dump: its reviewer table, or, for
+     * a vote cap or the review unit, its reviews tallied again. The reconciliation is the store's.
+     */
+    static TallyRun.Result fromStore(Path dir, TallyUnit unit, long capVotes) throws IOException {
+        if (capVotes < 0) {
+            throw new IllegalArgumentException("--cap-votes must be at least 1 vote per review (or 0 for no cap), not " + capVotes);
+        }
+        long start = System.nanoTime();
+        Store store = Store.open(dir);
+        TallyTable table;
+        if (capVotes == 0 && unit == TallyUnit.REVIEWER) {
+            table = store.reviewerTable();
+        } else {
+            table = new TallyTable(unit);
+            store.scan(capVotes == 0 ? table : new VoteCap(capVotes, table));
+        }
+        // Ranking needs no data set overview (as for a reviewer table read back); 'overview' counts a store itself.
+        return new TallyRun.Result(table, store.summary(), store.rejectsFile(), (System.nanoTime() - start) / 1e9,
+                StoreTally.sizeOf(dir), new org.voteworth.tally.OverviewCounts());
     }
 }

@@ -14,7 +14,7 @@ import picocli.CommandLine.Command;
         description = "Scores how credible reviewers are from the helpfulness votes their reviews received, "
                 + "ranks them with sound statistics, and explains every rank.",
         subcommands = {DemoCommand.class, GenerateCommand.class, TallyCommand.class, OverviewCommand.class, SparkTallyCommand.class,
-                RankCommand.class, SweepCommand.class, CompareCommand.class, AuditCommand.class, ReportCommand.class,
+                RankCommand.class, SweepCommand.class, CompareCommand.class, AuditCommand.class, ReportCommand.class, ProfileCommand.class,
                 CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
     @CommandLine.Spec

@@ -11,6 +11,7 @@ import java.util.concurrent.Callable;
 import org.voteworth.analysis.DatasetOverview;
 import org.voteworth.report.OutputFormat;
 import org.voteworth.report.OverviewWriter;
+import org.voteworth.store.Store;
 import org.voteworth.tally.ReviewerTableFile;
 import org.voteworth.tally.TallyUnit;
 import picocli.CommandLine.Command;
@@ -46,12 +47,16 @@ final class OverviewCommand implements Callable<Integer> {
         OutputFormat f = report.format();
         PrintWriter err = spec.commandLine().getErr();
         Path rejects = report.prepare(dump);
-        Files.createDirectories(dump.tmpDir());
-        // The reviewer table is only needed for reviews per reviewer; it is written within --memory and dropped.
-        Path table = Files.createTempFile(dump.tmpDir(), "voteworth-overview-", ".csv");
         TallyRun.Written w;
-        try (TallyRun.TempCleanup cleanup = TallyRun.TempCleanup.register(table)) {
-            w = TallyRun.write(dump, TallyUnit.REVIEWER, table, rejects, report.quiet, err);
+        if (dump.inputs.size() == 1 && Store.isStore(Path.of(dump.inputs.get(0)))) {
+            w = StoreTally.overview(Path.of(dump.inputs.get(0)));
+        } else {
+            Files.createDirectories(dump.tmpDir());
+            // The reviewer table is only needed for reviews per reviewer; it is written within --memory and dropped.
+            Path table = Files.createTempFile(dump.tmpDir(), "voteworth-overview-", ".csv");
+            try (TallyRun.TempCleanup cleanup = TallyRun.TempCleanup.register(table)) {
+                w = TallyRun.write(dump, TallyUnit.REVIEWER, table, rejects, report.quiet, err);
+            }
         }
         DatasetOverview o = DatasetOverview.of(w.overview());
         report.emit(spec, "overview", f, OverviewWriter.write(o, f, parameters(dump, w)));

@@ -92,7 +92,7 @@ final class ReportCommand implements Callable<Integer> {
         Path parent = out.toAbsolutePath().getParent();
         Files.createDirectories(parent);
         Path rejects = dump.rejectsFile().orElse(parent.resolve("rejects.tsv"));
-        TallyRun.Result t = AnalysisInput.read(dump, scoring, TallyUnit.REVIEWER, rejects, quiet, err);
+        TallyRun.Result t = AnalysisInput.readWithOverview(dump, scoring, TallyUnit.REVIEWER, rejects, quiet, err);
         RankRun run = RankRun.of(t.table(), scoring);
         Map<String, String> p = new LinkedHashMap<>(AnalysisInput.parameters(run.fit, scoring, dump, t.table()));
         write(out, t, run, run.primary, top, rows, privacy.ids(), promoted, uncertainty.settings(top, dump.threads()), bars, p);

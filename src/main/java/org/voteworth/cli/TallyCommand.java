@@ -51,11 +51,23 @@ final class TallyCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "No progress on stderr.")
     boolean quiet;
 
+    @Option(names = "--store", paramLabel = "DIR",
+            description = "Write the columnar store to DIR in the same pass instead of --out: reviewers.parquet, every review's "
+                    + "numeric columns in reviews/part-*.parquet (sorted by reviewer, then date), rejects.tsv and manifest.json. "
+                    + "rank, sweep, compare, audit and profile then read DIR instead of the dump.")
+    Path store;
+
+    @Option(names = "--append", description = "With --store: add new dump files to the store in DIR (a file it already holds is refused).")
+    boolean append;
+
     @Override
     public Integer call() throws IOException {
         PrintWriter outw = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
         OutputFormat f = OutputFormat.parse(format);
+        if (store != null || append) {
+            return StoreTally.run(this, outw, err, f);
+        }
         Files.createDirectories(out);
         Path rejects = dump.rejectsFile().orElse(out.resolve("rejects.tsv"));
         TallyUnit u = unit(unit);

@@ -10,6 +10,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
 import java.util.function.LongSupplier;
+import java.util.Optional;
 import java.util.function.UnaryOperator;
 import org.voteworth.source.CategoryFromName;
 import org.voteworth.source.DumpFile;
@@ -17,12 +18,14 @@ import org.voteworth.source.DumpFinder;
 import org.voteworth.source.Format;
 import org.voteworth.source.HeaderMapping;
 import org.voteworth.source.ParallelDumpReader;
+import org.voteworth.source.PieceListener;
 import org.voteworth.source.ProgressListener;
 import org.voteworth.source.RejectLog;
 import org.voteworth.source.RejectRateExceeded;
 import org.voteworth.source.ReviewSink;
 import org.voteworth.source.ScanSummary;
 import org.voteworth.source.SourceOptions;
+import org.voteworth.store.StoreWriter;
 import org.voteworth.tally.BoundedTally;
 import org.voteworth.tally.OverviewCounts;
 import org.voteworth.tally.ReviewerTableFile;
@@ -79,7 +82,8 @@ final class TallyRun {
                 bytes / 1e6 / Math.max(seconds, 1e-9));
     }
 
-    static SourceOptions sourceOptions(DumpOptions o) throws IOException {
+    /** The header mapping of {@code --map-file} and {@code --map} (the latter wins). */
+    static HeaderMapping mapping(DumpOptions o) throws IOException {
         HeaderMapping mapping = HeaderMapping.defaults();
         if (o.mapFile != null) {
             mapping = mapping.withOverrides(HeaderMapping.load(o.mapFile));
@@ -87,7 +91,11 @@ final class TallyRun {
         if (o.map != null) {
             mapping = mapping.withOverrides(HeaderMapping.parse(o.map));
         }
-        SourceOptions s = SourceOptions.defaults().withMapping(mapping).withMaxRejectRate(o.maxRejectRate);
+        return mapping;
+    }
+
+    static SourceOptions sourceOptions(DumpOptions o) throws IOException {
+        SourceOptions s = SourceOptions.defaults().withMapping(mapping(o)).withMaxRejectRate(o.maxRejectRate);
         if (o.csv) {
             s = s.withFormat(Format.CSV);
         }
@@ -140,7 +148,8 @@ final class TallyRun {
              BoundedTally tally = new BoundedTally(unit, o.memoryBytes(), runDir)) {
             UnaryOperator<ReviewSink> cap = capVotes == 0 ? UnaryOperator.identity() : sink -> new VoteCap(capVotes, sink);
             OverviewCounts overview = new OverviewCounts();
-            ScanSummary summary = scan(o, options, files, tally, cap, overview, rejectsFile, quiet, err, start, runDir);
+            ScanSummary summary = scan(o, options, files, tally, cap, PieceListener.NONE, overview, rejectsFile, quiet, err, start,
+                    runDir);
             TallyTable table;
             if (tally.spilled()) {
                 Path merged = runDir.resolve("merged-" + (unit == TallyUnit.REVIEW ? "reviews" : "reviewers") + ".csv");
@@ -182,8 +191,18 @@ final class TallyRun {
      */
     static Written write(DumpOptions o, TallyUnit unit, Path table, Path rejectsFile, boolean quiet, PrintWriter err)
             throws IOException {
+        return write(o, unit, table, rejectsFile, quiet, err, Optional.empty());
+    }
+
+    /** As {@link #write(DumpOptions, TallyUnit, Path, Path, boolean, PrintWriter)}, every accepted row also going to {@code store} in the same scan. */
+    static Written write(DumpOptions o, TallyUnit unit, Path table, Path rejectsFile, boolean quiet, PrintWriter err,
+                         Optional<StoreWriter> store) throws IOException {
         long start = System.nanoTime();
         if (isReviewerTable(o)) {
+            if (store.isPresent()) {
+                throw new IllegalArgumentException("--store keeps every review, but " + o.inputs.get(0)
+                        + " is a reviewer table: give the dump instead");
+            }
             Path p = Path.of(o.inputs.get(0));
             TallyTable t = ReviewerTableFile.read(p);
             ReviewerTableFile.write(t, table);
@@ -192,14 +211,18 @@ final class TallyRun {
         }
         SourceOptions options = sourceOptions(o);
         List<DumpFile> files = DumpFinder.find(o.inputs, options.categories());
+        if (store.isPresent()) {
+            store.get().begin(files);
+        }
         long budget = o.memoryBytes();
         Files.createDirectories(o.tmpDir());
         Path runDir = Files.createTempDirectory(o.tmpDir(), "voteworth-tally-");
         try (TempCleanup cleanup = TempCleanup.register(runDir);
              BoundedTally tally = new BoundedTally(unit, budget, runDir)) {
             OverviewCounts overview = new OverviewCounts();
-            ScanSummary summary = scan(o, options, files, tally, UnaryOperator.identity(), overview, rejectsFile, quiet, err, start,
-                    runDir);
+            UnaryOperator<ReviewSink> tee = store.isPresent() ? store.get()::tee : UnaryOperator.identity();
+            ScanSummary summary = scan(o, options, files, tally, tee, store.map(StoreWriter::pieces).orElse(PieceListener.NONE),
+                    overview, rejectsFile, quiet, err, start, runDir);
             if (!quiet && tally.spilled()) {
                 err.printf(Locale.ROOT, "tally: merging %d spilled partial tallies partition by partition ...%n", tally.spills());
                 err.flush();
@@ -222,12 +245,13 @@ final class TallyRun {
      * {@code overview} at the end.
      */
     private static ScanSummary scan(DumpOptions o, SourceOptions options, List<DumpFile> files, BoundedTally tally,
-                                    UnaryOperator<ReviewSink> wrap, OverviewCounts overview, Path rejectsFile, boolean quiet,
+                                    UnaryOperator<ReviewSink> wrap, PieceListener pieces, OverviewCounts overview, Path rejectsFile,
+                                    boolean quiet,
                                     PrintWriter err, long start, Path tmp) throws IOException {
         if (rejectsFile.toAbsolutePath().getParent() != null) {
             Files.createDirectories(rejectsFile.toAbsolutePath().getParent());
         }
-        ParallelDumpReader reader = new ParallelDumpReader(options, o.threads()).withTempDir(tmp);
+        ParallelDumpReader reader = new ParallelDumpReader(options, o.threads()).withTempDir(tmp).withPieceListener(pieces);
         ProgressListener progress = quiet ? ProgressListener.NONE : new Progress(err, start, Progress.stderrIsTerminal());
         try (RejectLog rejects = new RejectLog(rejectsFile)) {
             List<OverviewCounts> perWorker = new java.util.concurrent.CopyOnWriteArrayList<>();

@@ -39,6 +39,7 @@ public final class ParallelDumpReader {
     private final int threads;
     private Path tmpDir = Path.of(System.getProperty("java.io.tmpdir"));
     private Function<DumpFile, long[]> cuts;
+    private PieceListener pieces = PieceListener.NONE;
 
     /**
      * @param threads scanning workers (1 or more); each compressed file being read adds one
@@ -55,6 +56,16 @@ public final class ParallelDumpReader {
     /** Where rejects of a range overflow to when there are very many (default: java.io.tmpdir). */
     public ParallelDumpReader withTempDir(Path dir) {
         this.tmpDir = Objects.requireNonNull(dir, "dir");
+        return this;
+    }
+
+    /**
+     * Tells {@code listener} where each piece of work starts and, once its turn in file order has
+     * come, the line number its rows count from, so that a sink which keeps rows can number them
+     * exactly (see {@link PieceListener}).
+     */
+    public ParallelDumpReader withPieceListener(PieceListener listener) {
+        this.pieces = Objects.requireNonNull(listener, "listener");
         return this;
     }
 
@@ -108,7 +119,8 @@ public final class ParallelDumpReader {
         List<Thread> pool = new ArrayList<>();
         for (int w = 0; w < workers; w++) {
             ReviewSink sink = sinks.get(w);
-            Thread t = new Thread(() -> work(units, done, next, abort, new DumpScanner(unlimited), sink, bytesDone, rowsDone,
+            int number = w;
+            Thread t = new Thread(() -> work(number, units, done, next, abort, new DumpScanner(unlimited), sink, bytesDone, rowsDone,
                     overall), "scan-" + w);
             t.setDaemon(true);
             pool.add(t);
@@ -133,7 +145,7 @@ public final class ParallelDumpReader {
         }
     }
 
-    private void work(List<Unit> units, Done[] done, AtomicInteger next, java.util.concurrent.atomic.AtomicBoolean abort,
+    private void work(int worker, List<Unit> units, Done[] done, AtomicInteger next, java.util.concurrent.atomic.AtomicBoolean abort,
                       DumpScanner scanner, ReviewSink sink, AtomicLong bytesDone, AtomicLong rowsDone,
                       ProgressListener overall) {
         scanner.pipelined(true);
@@ -155,6 +167,7 @@ public final class ParallelDumpReader {
                 overall.progress(0, 0, 0);
             });
             try {
+                pieces.started(worker, u.fileIndex, u.start);
                 if (u.whole) {
                     d.report = scanner.scan(u.file, sink, buffered);
                 } else {
@@ -210,6 +223,7 @@ public final class ParallelDumpReader {
             // Rows of the first range are numbered after the header (line 1); other ranges from line 1 of their own.
             long rowBase = u.first ? -1 : 0;
             long lineBase = linesBefore;
+            pieces.lineBase(u.fileIndex, u.start, lineBase);
             DumpFile file = u.file;
             d.rejects.replay((line, r, row, s, e) -> {
                 long g = rowsBefore + line + rowBase;

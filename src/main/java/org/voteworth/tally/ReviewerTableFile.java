@@ -79,6 +79,12 @@ public final class ReviewerTableFile {
     /** Reads a reviewer table written by {@link #write}; errors name the file, line and column. */
     public static TallyTable read(Path file) throws IOException {
         TallyTable table = new TallyTable();
+        forEach(file, table::add);
+        return table;
+    }
+
+    /** Hands each tally of a reviewer table written by {@link #write} to {@code each}, in file order, without holding them. */
+    public static void forEach(Path file, java.util.function.Consumer<ReviewerTally> each) throws IOException {
         try (BufferedReader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
             String header = r.readLine();
             if (header == null || !Csv.parseLine(header).equals(HEADER)) {
@@ -91,14 +97,15 @@ public final class ReviewerTableFile {
                 if (line.isEmpty()) {
                     continue;
                 }
+                ReviewerTally t;
                 try {
-                    table.add(parse(Csv.parseLine(line)));
+                    t = parse(Csv.parseLine(line));
                 } catch (RuntimeException e) {
                     throw new IOException(file + ": line " + n + ": " + e.getMessage(), e);
                 }
+                each.accept(t);
             }
         }
-        return table;
     }
 
     private static ReviewerTally parse(List<String> c) {
