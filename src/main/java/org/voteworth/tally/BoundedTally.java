@@ -9,12 +9,10 @@ import java.io.UncheckedIOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
 import java.util.PriorityQueue;
-import java.util.function.Consumer;
 import java.util.stream.Stream;
 import org.voteworth.source.ReviewRow;
 import org.voteworth.source.ReviewSink;
@@ -87,17 +85,12 @@ public final class BoundedTally implements AutoCloseable {
      * Without spilling, the workers' tables are merged in memory when that fits the budget.
      */
     public void write(Path file) throws IOException {
-        write(file, t -> { });
-    }
-
-    /** As {@link #write(Path)}, handing each tally written, in id order, to {@code each} as well. */
-    public void write(Path file, Consumer<ReviewerTally> each) throws IOException {
         long inMemory = workers.stream().mapToLong(w -> w.table.memoryBytes()).sum();
         // Merging and sorting in memory needs about twice the tables' footprint.
         if (!spilled() && 2 * inMemory <= budget) {
             TallyTable all = mergedInMemory();
-            int[] order = all.sortedById();
-            reviewers = ReviewerTableFile.write(java.util.Arrays.stream(order).mapToObj(all::get).peek(each).iterator(), file);
+            reviewers = all.size();
+            ReviewerTableFile.write(all, file);
             return;
         }
         for (Worker w : workers) {
@@ -118,20 +111,7 @@ public final class BoundedTally implements AutoCloseable {
             }
             runs.add(run);
         }
-        java.util.Iterator<ReviewerTally> sorted = mergeRuns(runs);
-        reviewers = ReviewerTableFile.write(new java.util.Iterator<>() {
-            @Override
-            public boolean hasNext() {
-                return sorted.hasNext();
-            }
-
-            @Override
-            public ReviewerTally next() {
-                ReviewerTally t = sorted.next();
-                each.accept(t);
-                return t;
-            }
-        }, file);
+        reviewers = mergeRuns(runs, file);
     }
 
     /** The workers' tables merged into one, ignoring the budget (for commands that rank in memory). */
@@ -155,42 +135,52 @@ public final class BoundedTally implements AutoCloseable {
         }
     }
 
-    /** Merges runs sorted by id whose ids are disjoint (hash partitions) into one sorted stream. */
-    private static java.util.Iterator<ReviewerTally> mergeRuns(List<Path> runs) throws IOException {
-        record Head(ReviewerTally tally, TallyTable.RunReader from) {
-        }
-        PriorityQueue<Head> heads = new PriorityQueue<>(Comparator.comparing((Head h) -> h.tally.id()));
-        for (Path r : runs) {
-            TallyTable.RunReader reader = new TallyTable.RunReader(input(r));
-            Optional<ReviewerTally> first = reader.next();
-            if (first.isPresent()) {
-                heads.add(new Head(first.get(), reader));
-            } else {
-                reader.close();
-            }
-        }
-        return new java.util.Iterator<>() {
-            @Override
-            public boolean hasNext() {
-                return !heads.isEmpty();
-            }
+    /** One sorted run being merged: its stream, its category ids in the merge's dictionary, its current tally. */
+    private static final class Cursor {
+        final DataInputStream in;
+        final int[] categoryMap;
+        final TallyRecord current = new TallyRecord();
 
-            @Override
-            public ReviewerTally next() {
-                Head h = heads.poll();
-                try {
-                    Optional<ReviewerTally> n = h.from.next();
-                    if (n.isPresent()) {
-                        heads.add(new Head(n.get(), h.from));
-                    } else {
-                        h.from.close();
-                    }
-                } catch (IOException e) {
-                    throw new UncheckedIOException("cannot read a spilled tally: " + e.getMessage(), e);
-                }
-                return h.tally;
+        Cursor(Path run, Categories dictionary) throws IOException {
+            in = input(run);
+            categoryMap = TallyTable.readCategoryNames(in, dictionary);
+        }
+
+        boolean advance() throws IOException {
+            return current.read(in, categoryMap);
+        }
+    }
+
+    /** Merges runs sorted by id whose ids are disjoint (hash partitions) into the reviewer table; returns the rows written. */
+    private static long mergeRuns(List<Path> runs, Path file) throws IOException {
+        Categories dictionary = new Categories();
+        List<Cursor> cursors = new ArrayList<>();
+        try {
+            for (Path r : runs) {
+                cursors.add(new Cursor(r, dictionary));
             }
-        };
+            PriorityQueue<Cursor> heads = new PriorityQueue<>((x, y) -> IdOrder.compare(x.current.id, x.current.idLength,
+                    y.current.id, y.current.idLength));
+            for (Cursor c : cursors) {
+                if (c.advance()) {
+                    heads.add(c);
+                }
+            }
+            try (ReviewerTableFile.Rows rows = new ReviewerTableFile.Rows(Files.newOutputStream(file), dictionary.all())) {
+                while (!heads.isEmpty()) {
+                    Cursor c = heads.poll();
+                    rows.write(c.current);
+                    if (c.advance()) {
+                        heads.add(c);
+                    }
+                }
+                return rows.count();
+            }
+        } finally {
+            for (Cursor c : cursors) {
+                c.in.close();
+            }
+        }
     }
 
     private static DataInputStream input(Path f) throws IOException {

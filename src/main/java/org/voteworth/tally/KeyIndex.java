@@ -15,12 +15,14 @@ import java.util.Arrays;
 final class KeyIndex {
     private final LongIntMap numeric = new LongIntMap(1 << 12);
 
-    // Byte ids: arena of [len:int][bytes], and a table of arena offsets (+1; 0 = empty).
+    // Byte ids: arena of [len:int][bytes], and a table of entries (arena offset + 1, slot) side by
+    // side (offset 0 = empty), so a probe reads one place.
     private byte[] arena = new byte[1 << 12];
     private int arenaUsed;
-    private int[] table = new int[1 << 10];
-    private int[] tableSlot = new int[1 << 10];
+    private int[] table = new int[2 << 10];
     private int byteCount;
+    /** Whether some byte id has a byte outside ASCII (its String order then needs decoding). */
+    private boolean nonAscii;
 
     /** Per slot: the numeric id (>= 0), or -(arena offset + 1). */
     private long[] refs = new long[1 << 10];
@@ -33,14 +35,7 @@ final class KeyIndex {
     /** The slot of the id in {@code b[off, off+len)}, created if new. */
     int slotOf(byte[] b, int off, int len) {
         long n = canonicalNumber(b, off, len);
-        if (n >= 0) {
-            int s = numeric.getOrPut(n, size);
-            if (s == size) {
-                newSlot(n);
-            }
-            return s;
-        }
-        return bytesSlot(b, off, len);
+        return n >= 0 ? slotOfNumber(n) : bytesSlot(b, off, len);
     }
 
     int slotOf(String id) {
@@ -55,11 +50,10 @@ final class KeyIndex {
         if (n >= 0) {
             return numeric.get(n);
         }
-        int h = hash(b, 0, b.length);
-        int mask = table.length - 1;
-        for (int i = h & mask; table[i] != 0; i = (i + 1) & mask) {
-            if (equalsArena(table[i] - 1, b, 0, b.length)) {
-                return tableSlot[i];
+        int mask = (table.length >> 1) - 1;
+        for (int i = hash(b, 0, b.length) & mask; table[2 * i] != 0; i = (i + 1) & mask) {
+            if (equalsArena(table[2 * i] - 1, b, 0, b.length)) {
+                return table[2 * i + 1];
             }
         }
         return -1;
@@ -75,6 +69,97 @@ final class KeyIndex {
         return new String(arena, at + 4, len, StandardCharsets.UTF_8);
     }
 
+    /** Whether the id of {@code slot} is a canonical number (kept as a long, not as bytes). */
+    boolean isNumeric(int slot) {
+        return refs[slot] >= 0;
+    }
+
+    /** The numeric id of {@code slot}; only for {@link #isNumeric} slots. */
+    long number(int slot) {
+        return refs[slot];
+    }
+
+    /** Whether every id is ASCII, so that byte order is String order. */
+    boolean allAscii() {
+        return !nonAscii;
+    }
+
+    /** The UTF-8 bytes of the id of {@code slot} written at {@code into[0...]}; returns their count. */
+    int idBytes(int slot, byte[] into) {
+        long r = refs[slot];
+        if (r >= 0) {
+            return digits(r, into, 0);
+        }
+        int at = (int) (-r - 1);
+        int len = readInt(arena, at);
+        System.arraycopy(arena, at + 4, into, 0, len);
+        return len;
+    }
+
+    /** Length in bytes of the id of {@code slot}. */
+    int idLength(int slot) {
+        long r = refs[slot];
+        if (r >= 0) {
+            int n = 1;
+            for (long v = r; v >= 10; v /= 10) {
+                n++;
+            }
+            return n;
+        }
+        return readInt(arena, (int) (-r - 1));
+    }
+
+    /**
+     * Bytes {@code [from, from + 8)} of the id of {@code slot} as an unsigned big-endian number,
+     * zero past the id's end: comparing these keys orders ASCII ids as String order does, up to
+     * ties between ids that agree on those bytes. {@code digits} is scratch room for 19 digits.
+     */
+    long chunk(int slot, int from, byte[] digits) {
+        long r = refs[slot];
+        byte[] src;
+        int off;
+        int len;
+        if (r >= 0) {
+            len = digits(r, digits, 0);
+            src = digits;
+            off = 0;
+        } else {
+            int at = (int) (-r - 1);
+            len = readInt(arena, at);
+            src = arena;
+            off = at + 4;
+        }
+        long k = 0;
+        for (int i = from; i < from + 8; i++) {
+            k = k << 8 | (i < len ? src[off + i] & 0xFF : 0);
+        }
+        return k;
+    }
+
+    /** Writes the decimal digits of {@code v >= 0} at {@code into[at...]}; returns how many. */
+    static int digits(long v, byte[] into, int at) {
+        int n = 1;
+        for (long x = v; x >= 10; x /= 10) {
+            n++;
+        }
+        long x = v;
+        for (int i = at + n - 1; i >= at; i--) {
+            into[i] = (byte) ('0' + x % 10);
+            x /= 10;
+        }
+        return n;
+    }
+
+    /** The slot of the id of {@code other}'s slot {@code o} in this index, created if new. */
+    int slotOf(KeyIndex other, int o) {
+        long r = other.refs[o];
+        if (r >= 0) {
+            return slotOfNumber(r);
+        }
+        int at = (int) (-r - 1);
+        return bytesSlot(other.arena, at + 4, readInt(other.arena, at));
+    }
+
     /** Which of {@code parts} spill partitions the id of {@code slot} belongs to; the same in every table. */
     int partition(int slot, int parts) {
         long r = refs[slot];
@@ -88,41 +173,17 @@ final class KeyIndex {
         return Math.floorMod(h, parts);
     }
 
-    /** Writes the id of {@code slot}: a kind byte (0 numeric, 1 bytes) and the number or the bytes. */
-    void writeId(int slot, java.io.DataOutput out) throws java.io.IOException {
-        long r = refs[slot];
-        if (r >= 0) {
-            out.writeByte(0);
-            out.writeLong(r);
-        } else {
-            int at = (int) (-r - 1);
-            int len = readInt(arena, at);
-            out.writeByte(1);
-            out.writeInt(len);
-            out.write(arena, at + 4, len);
+    /** The slot of the canonical number {@code n}, created if new. */
+    int slotOfNumber(long n) {
+        int s = numeric.getOrPut(n, size);
+        if (s == size) {
+            newSlot(n);
         }
-    }
-
-    /** The slot of an id written by {@link #writeId}, whose kind byte was already read; created if new. */
-    int readId(int kind, java.io.DataInput in, byte[][] scratch) throws java.io.IOException {
-        if (kind == 0) {
-            long n = in.readLong();
-            int s = numeric.getOrPut(n, size);
-            if (s == size) {
-                newSlot(n);
-            }
-            return s;
-        }
-        int len = in.readInt();
-        if (scratch[0].length < len) {
-            scratch[0] = new byte[Math.max(len, 2 * scratch[0].length)];
-        }
-        in.readFully(scratch[0], 0, len);
-        return bytesSlot(scratch[0], 0, len);
+        return s;
     }
 
     long memoryBytes() {
-        return numeric.memoryBytes() + arena.length + table.length * 8L + refs.length * 8L;
+        return numeric.memoryBytes() + arena.length + table.length * 4L + refs.length * 8L;
     }
 
     /** Digits only, no leading zero unless "0", at most 18 digits: the value; otherwise -1. */
@@ -149,21 +210,23 @@ final class KeyIndex {
     }
 
     private int bytesSlot(byte[] b, int off, int len) {
-        int h = hash(b, off, len);
-        int mask = table.length - 1;
-        int i = h & mask;
-        while (table[i] != 0) {
-            if (equalsArena(table[i] - 1, b, off, len)) {
-                return tableSlot[i];
+        int mask = (table.length >> 1) - 1;
+        int i = hash(b, off, len) & mask;
+        while (table[2 * i] != 0) {
+            if (equalsArena(table[2 * i] - 1, b, off, len)) {
+                return table[2 * i + 1];
             }
             i = (i + 1) & mask;
         }
         int at = append(b, off, len);
-        table[i] = at + 1;
-        tableSlot[i] = size;
+        table[2 * i] = at + 1;
+        table[2 * i + 1] = size;
         newSlot(-(long) at - 1);
-        if (++byteCount * 2 > table.length) {
+        if (++byteCount * 2 > mask + 1) {
             growTable();
+        }
+        for (int j = off; j < off + len && !nonAscii; j++) {
+            nonAscii = b[j] < 0;
         }
         return size - 1;
     }
@@ -191,21 +254,18 @@ final class KeyIndex {
     }
 
     private void growTable() {
-        int[] oldTable = table;
-        int[] oldSlot = tableSlot;
-        table = new int[oldTable.length * 2];
-        tableSlot = new int[oldTable.length * 2];
-        int mask = table.length - 1;
-        for (int j = 0; j < oldTable.length; j++) {
-            if (oldTable[j] != 0) {
-                int at = oldTable[j] - 1;
-                int len = readInt(arena, at);
-                int i = hash(arena, at + 4, len) & mask;
-                while (table[i] != 0) {
+        int[] old = table;
+        table = new int[old.length * 2];
+        int mask = (table.length >> 1) - 1;
+        for (int j = 0; j < old.length; j += 2) {
+            if (old[j] != 0) {
+                int at = old[j] - 1;
+                int i = hash(arena, at + 4, readInt(arena, at)) & mask;
+                while (table[2 * i] != 0) {
                     i = (i + 1) & mask;
                 }
-                table[i] = oldTable[j];
-                tableSlot[i] = oldSlot[j];
+                table[2 * i] = old[j];
+                table[2 * i + 1] = old[j + 1];
             }
         }
     }

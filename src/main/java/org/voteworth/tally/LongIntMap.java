@@ -1,24 +1,21 @@
 package org.voteworth.tally;
 
-import java.util.Arrays;
-
 /**
  * Open-addressing map from non-negative {@code long} keys to {@code int} values, linear probing,
- * no boxing. Absent keys read as {@code -1}. Used for numeric reviewer ids and for the
- * (slot, category) counters of a {@link TallyTable}.
+ * no boxing. Absent keys read as {@code -1}. Key and value of an entry sit side by side in one
+ * array, so a lookup in a table far larger than the CPU caches costs one memory access, not two.
+ * Used for numeric reviewer ids.
  */
 final class LongIntMap {
     private static final long EMPTY = -1L;
-    private long[] keys;
-    private int[] values;
+    /** Entry i: key at 2i, value at 2i + 1. */
+    private long[] table;
     private int size;
     private int mask;
 
     LongIntMap(int expected) {
         int cap = Integer.highestOneBit(Math.max(16, expected * 2 - 1)) << 1;
-        keys = new long[cap];
-        Arrays.fill(keys, EMPTY);
-        values = new int[cap];
+        table = emptyTable(cap);
         mask = cap - 1;
     }
 
@@ -37,9 +34,9 @@ final class LongIntMap {
     int get(long key) {
         int i = mix(key) & mask;
         while (true) {
-            long k = keys[i];
+            long k = table[2 * i];
             if (k == key) {
-                return values[i];
+                return (int) table[2 * i + 1];
             }
             if (k == EMPTY) {
                 return -1;
@@ -52,14 +49,14 @@ final class LongIntMap {
     int getOrPut(long key, int valueIfAbsent) {
         int i = mix(key) & mask;
         while (true) {
-            long k = keys[i];
+            long k = table[2 * i];
             if (k == key) {
-                return values[i];
+                return (int) table[2 * i + 1];
             }
             if (k == EMPTY) {
-                keys[i] = key;
-                values[i] = valueIfAbsent;
-                if (++size * 2 > keys.length) {
+                table[2 * i] = key;
+                table[2 * i + 1] = valueIfAbsent;
+                if (++size * 2 > mask + 1) {
                     grow();
                 }
                 return valueIfAbsent;
@@ -68,60 +65,32 @@ final class LongIntMap {
         }
     }
 
-    /** Adds {@code delta} to the value of {@code key}, treating an absent key as 0. */
-    void add(long key, int delta) {
-        int i = mix(key) & mask;
-        while (true) {
-            long k = keys[i];
-            if (k == key) {
-                values[i] += delta;
-                return;
-            }
-            if (k == EMPTY) {
-                keys[i] = key;
-                values[i] = delta;
-                if (++size * 2 > keys.length) {
-                    grow();
-                }
-                return;
-            }
-            i = (i + 1) & mask;
-        }
-    }
-
-    /** Calls {@code visitor} for every entry, in no particular order. */
-    void forEach(Visitor visitor) {
-        for (int i = 0; i < keys.length; i++) {
-            if (keys[i] != EMPTY) {
-                visitor.visit(keys[i], values[i]);
-            }
-        }
-    }
-
     long memoryBytes() {
-        return keys.length * 12L;
+        return table.length * 8L;
     }
 
-    interface Visitor {
-        void visit(long key, int value);
+    private static long[] emptyTable(int entries) {
+        long[] t = new long[2 * entries];
+        for (int i = 0; i < t.length; i += 2) {
+            t[i] = EMPTY;
+        }
+        return t;
     }
 
     private void grow() {
-        long[] oldKeys = keys;
-        int[] oldValues = values;
-        keys = new long[oldKeys.length * 2];
-        Arrays.fill(keys, EMPTY);
-        values = new int[oldKeys.length * 2];
-        mask = keys.length - 1;
-        for (int j = 0; j < oldKeys.length; j++) {
-            long k = oldKeys[j];
+        long[] old = table;
+        int cap = 2 * (mask + 1);
+        table = emptyTable(cap);
+        mask = cap - 1;
+        for (int j = 0; j < old.length; j += 2) {
+            long k = old[j];
             if (k != EMPTY) {
                 int i = mix(k) & mask;
-                while (keys[i] != EMPTY) {
+                while (table[2 * i] != EMPTY) {
                     i = (i + 1) & mask;
                 }
-                keys[i] = k;
-                values[i] = oldValues[j];
+                table[2 * i] = k;
+                table[2 * i + 1] = old[j + 1];
             }
         }
     }

@@ -1,8 +1,8 @@
 package org.voteworth.tally;
 
 import java.io.BufferedReader;
-import java.io.BufferedWriter;
 import java.io.IOException;
+import java.io.OutputStream;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -38,42 +38,261 @@ public final class ReviewerTableFile {
     }
 
     public static void write(TallyTable table, Path file) throws IOException {
-        int[] order = table.sortedById();
-        write(java.util.Arrays.stream(order).mapToObj(table::get).iterator(), file);
-    }
-
-    /** Writes tallies already ordered by id (streamed from sorted partitions); returns how many. */
-    public static long write(java.util.Iterator<ReviewerTally> sorted, Path file) throws IOException {
-        long n = 0;
-        try (BufferedWriter w = new BufferedWriter(new java.io.OutputStreamWriter(Files.newOutputStream(file),
-                StandardCharsets.UTF_8), 1 << 16)) {
-            w.write(String.join(",", HEADER));
-            w.write('\n');
-            while (sorted.hasNext()) {
-                w.write(row(sorted.next()));
-                w.write('\n');
-                n++;
+        try (Rows rows = new Rows(Files.newOutputStream(file), table.categories())) {
+            TallyRecord r = new TallyRecord();
+            for (int s : table.sortedById()) {
+                table.load(s, r, null);
+                rows.write(r);
             }
         }
-        return n;
     }
 
-    static String row(ReviewerTally t) {
-        StringJoiner cats = new StringJoiner(";");
-        t.reviewsByCategory().forEach((c, n) -> cats.add(c.replace(";", "_").replace(":", "_") + ":" + n));
-        StringJoiner j = new StringJoiner(",");
-        j.add(Csv.text(t.id())).add(Long.toString(t.reviews())).add(Long.toString(t.helpfulVotes()))
-                .add(Long.toString(t.totalVotes()))
-                .add(t.totalVotes() == 0 ? "" : decimal(t.helpfulShare()))
-                .add(Long.toString(t.votedReviews())).add(Long.toString(t.majorityReviews()))
-                .add(Long.toString(t.maxReviewVotes())).add(decimal(t.maxReviewShare()))
-                .add(Long.toString(t.sumSquaredVotes())).add(decimal(t.herfindahl()))
-                .add(Long.toString(t.verified())).add(Long.toString(t.incentivised()));
-        for (int s = 1; s <= 5; s++) {
-            j.add(Long.toString(t.stars().of(s)));
+    /**
+     * Writes the reviewer table row by row from {@link TallyRecord}s given in id order, formatting
+     * straight into a byte buffer. Category ids of the records refer to the names given.
+     */
+    static final class Rows implements AutoCloseable {
+        private static final int FLUSH_AT = 1 << 16;
+        private final OutputStream out;
+        private final String[] names;
+        /** Per category id: the rank of its name in String order (equal names, equal rank). */
+        private final int[] rank;
+        /** Per category id: the name with ';' and ':' made '_', as UTF-8. */
+        private final byte[][] cell;
+        /** Per category id: whether the name can go into the cell without quoting or neutralising. */
+        private final boolean[] plain;
+        private byte[] buf = new byte[FLUSH_AT + 4096];
+        private int len;
+        private long count;
+        private long[] pairs = new long[8];
+
+        Rows(OutputStream out, List<String> categoryNames) throws IOException {
+            this.out = out;
+            names = categoryNames.toArray(new String[0]);
+            String[] sorted = names.clone();
+            java.util.Arrays.sort(sorted);
+            rank = new int[names.length];
+            cell = new byte[names.length][];
+            plain = new boolean[names.length];
+            for (int c = 0; c < names.length; c++) {
+                rank[c] = java.util.Arrays.binarySearch(sorted, names[c]);
+                while (rank[c] > 0 && sorted[rank[c] - 1].equals(names[c])) {
+                    rank[c]--;
+                }
+                String v = cellName(names[c]);
+                cell[c] = v.getBytes(StandardCharsets.UTF_8);
+                // The pair as the first of a cell: no quoting needed and nothing to neutralise.
+                plain[c] = Csv.text(v + ":1").equals(v + ":1");
+            }
+            ascii(String.join(",", HEADER));
+            put((byte) '\n');
         }
-        j.add(date(t.firstDay())).add(date(t.lastDay())).add(Csv.text(cats.toString()));
-        return j.toString();
+
+        private static String cellName(String category) {
+            return category.replace(";", "_").replace(":", "_");
+        }
+
+        /** Rows written so far. */
+        long count() {
+            return count;
+        }
+
+        void write(TallyRecord r) throws IOException {
+            id(r);
+            put((byte) ',');
+            number(r.reviews);
+            put((byte) ',');
+            number(r.helpful);
+            put((byte) ',');
+            number(r.total);
+            put((byte) ',');
+            if (r.total != 0) {
+                decimal((double) r.helpful / r.total);
+            }
+            put((byte) ',');
+            number(r.voted);
+            put((byte) ',');
+            number(r.majority);
+            put((byte) ',');
+            number(r.maxVotes);
+            put((byte) ',');
+            decimal(r.total == 0 ? 0 : (double) r.maxVotes / r.total);
+            put((byte) ',');
+            number(r.sumSquares);
+            put((byte) ',');
+            decimal(r.total == 0 ? 0 : r.sumSquares / ((double) r.total * r.total));
+            put((byte) ',');
+            number(r.verified);
+            put((byte) ',');
+            number(r.incentivised);
+            for (int k = 0; k < 5; k++) {
+                put((byte) ',');
+                number(r.stars[k]);
+            }
+            put((byte) ',');
+            date(r.firstDay);
+            put((byte) ',');
+            date(r.lastDay);
+            put((byte) ',');
+            categories(r);
+            put((byte) '\n');
+            count++;
+            if (len >= FLUSH_AT) {
+                out.write(buf, 0, len);
+                len = 0;
+            }
+        }
+
+        private void id(TallyRecord r) {
+            boolean raw = r.numeric;
+            if (!raw && r.idLength > 0) {
+                byte first = r.id[0];
+                raw = first != '=' && first != '+' && first != '-' && first != '@' && first != '\t' && first != '\r'
+                        && first != '\'';
+                for (int i = 0; i < r.idLength && raw; i++) {
+                    byte c = r.id[i];
+                    raw = c >= 0 && c != ',' && c != '"' && c != '\n' && c != '\r';
+                }
+            }
+            if (raw) {
+                room(r.idLength);
+                System.arraycopy(r.id, 0, buf, len, r.idLength);
+                len += r.idLength;
+            } else {
+                utf8(Csv.text(r.idString()));
+            }
+        }
+
+        /** The categories as name:count pairs in name order, joined by ';', as one text cell. */
+        private void categories(TallyRecord r) {
+            int n = r.categories;
+            if (pairs.length < n) {
+                pairs = new long[2 * n];
+            }
+            for (int j = 0; j < n; j++) {
+                pairs[j] = (long) rank[r.categoryIds[j]] << 32 | j;
+            }
+            java.util.Arrays.sort(pairs, 0, n);
+            boolean fast = true;
+            for (int j = 0; j < n && fast; j++) {
+                fast = plain[r.categoryIds[(int) pairs[j]]] && (j == 0 || pairs[j] >>> 32 != pairs[j - 1] >>> 32);
+            }
+            if (fast) {
+                for (int j = 0; j < n; j++) {
+                    int at = (int) pairs[j];
+                    if (j > 0) {
+                        put((byte) ';');
+                    }
+                    byte[] name = cell[r.categoryIds[at]];
+                    room(name.length);
+                    System.arraycopy(name, 0, buf, len, name.length);
+                    len += name.length;
+                    put((byte) ':');
+                    number(r.categoryCounts[at]);
+                }
+                return;
+            }
+            TreeMap<String, Long> byName = new TreeMap<>();
+            for (int j = 0; j < n; j++) {
+                byName.merge(names[r.categoryIds[j]], (long) r.categoryCounts[j], Long::sum);
+            }
+            StringJoiner cats = new StringJoiner(";");
+            byName.forEach((c, k) -> cats.add(cellName(c) + ":" + k));
+            utf8(Csv.text(cats.toString()));
+        }
+
+        private void number(long v) {
+            if (v < 0) {
+                ascii(Long.toString(v));
+                return;
+            }
+            room(20);
+            len += KeyIndex.digits(v, buf, len);
+        }
+
+        /** {@code %.6f}; shares in [0, 1] take a fast path that gives the same digits (ties fall back to the formatter). */
+        void decimal(double v) {
+            if (v >= 0 && v <= 1) {
+                double x = v * 1e6;
+                double frac = x - Math.floor(x);
+                if (Math.abs(frac - 0.5) > 1e-6) {
+                    long m = Math.round(x);
+                    room(8);
+                    if (m >= 1_000_000) {
+                        ascii("1.000000");
+                        return;
+                    }
+                    buf[len++] = '0';
+                    buf[len++] = '.';
+                    for (int i = 5; i >= 0; i--) {
+                        buf[len + i] = (byte) ('0' + m % 10);
+                        m /= 10;
+                    }
+                    len += 6;
+                    return;
+                }
+            }
+            ascii(String.format(Locale.ROOT, "%.6f", v));
+        }
+
+        private void date(int epochDay) {
+            if (epochDay == ReviewerTally.NO_DATE) {
+                return;
+            }
+            LocalDate d = LocalDate.ofEpochDay(epochDay);
+            int y = d.getYear();
+            if (y < 0 || y > 9999) {
+                ascii(d.toString());
+                return;
+            }
+            room(10);
+            fixed(y, 4);
+            buf[len++] = '-';
+            fixed(d.getMonthValue(), 2);
+            buf[len++] = '-';
+            fixed(d.getDayOfMonth(), 2);
+        }
+
+        private void fixed(int v, int width) {
+            for (int i = width - 1; i >= 0; i--) {
+                buf[len + i] = (byte) ('0' + v % 10);
+                v /= 10;
+            }
+            len += width;
+        }
+
+        private void ascii(String s) {
+            room(s.length());
+            for (int i = 0; i < s.length(); i++) {
+                buf[len++] = (byte) s.charAt(i);
+            }
+        }
+
+        private void utf8(String s) {
+            byte[] b = s.getBytes(StandardCharsets.UTF_8);
+            room(b.length);
+            System.arraycopy(b, 0, buf, len, b.length);
+            len += b.length;
+        }
+
+        private void put(byte b) {
+            room(1);
+            buf[len++] = b;
+        }
+
+        private void room(int n) {
+            if (len + n > buf.length) {
+                buf = java.util.Arrays.copyOf(buf, Math.max(2 * buf.length, len + n));
+            }
+        }
+
+        @Override
+        public void close() throws IOException {
+            try (out) {
+                out.write(buf, 0, len);
+                len = 0;
+            }
+        }
     }
 
     /** Reads a reviewer table written by {@link #write}; errors name the file, line and column. */
@@ -141,26 +360,5 @@ public final class ReviewerTableFile {
 
     private static int day(String v) {
         return v.isEmpty() ? ReviewerTally.NO_DATE : Math.toIntExact(LocalDate.parse(v).toEpochDay());
-    }
-
-    private static String date(int epochDay) {
-        return epochDay == ReviewerTally.NO_DATE ? "" : LocalDate.ofEpochDay(epochDay).toString();
-    }
-
-    /** {@code %.6f}; shares in [0, 1] take a fast path that gives the same digits (ties fall back to the formatter). */
-    static String decimal(double v) {
-        if (v >= 0 && v <= 1) {
-            double x = v * 1e6;
-            double frac = x - Math.floor(x);
-            if (Math.abs(frac - 0.5) > 1e-6) {
-                long m = Math.round(x);
-                if (m >= 1_000_000) {
-                    return "1.000000";
-                }
-                String d = Long.toString(1_000_000 + m);
-                return "0." + d.substring(1);
-            }
-        }
-        return String.format(Locale.ROOT, "%.6f", v);
     }
 }

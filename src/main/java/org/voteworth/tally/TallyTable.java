@@ -1,5 +1,8 @@
 package org.voteworth.tally;
 
+import java.io.DataInputStream;
+import java.io.DataOutputStream;
+import java.io.IOException;
 import java.util.Arrays;
 import java.util.List;
 import java.util.TreeMap;
@@ -7,36 +10,53 @@ import org.voteworth.source.ReviewRow;
 import org.voteworth.source.ReviewSink;
 
 /**
- * Per-reviewer tallies in parallel primitive arrays: the reviewer table that scoring reads.
+ * Per-reviewer tallies in primitive arrays: the reviewer table that scoring reads.
  *
  * <p>Rows go in through {@link #accept(ReviewRow)}; tables built over different files, byte
  * ranges or partitions combine through {@link #mergeFrom(TallyTable)}, which means exactly what
  * {@link ReviewerTally#merge} means for one reviewer. Slots are numbered in order of first
  * appearance; use {@link #sortedById()} for an order that does not depend on input order.
  *
+ * <p>A reviewer's counters sit together (one block of ints and one of longs per slot), because
+ * rows arrive in no order and a table of millions of reviewers is far larger than the CPU caches:
+ * one row then touches two or three memory places instead of one per counter. The first category
+ * of a slot is kept in its block; further ones in a small shared pool of linked entries.
+ *
  * <p>Not thread-safe: one table per thread, merged at the end.
  */
 public final class TallyTable implements ReviewSink {
+    // Ints per slot, at INTS * slot + field.
+    private static final int INTS = 16;
+    private static final int REVIEWS = 0;
+    private static final int VOTED = 1;
+    private static final int MAJORITY = 2;
+    private static final int VERIFIED = 3;
+    private static final int INCENTIVISED = 4;
+    private static final int STARS = 5;
+    private static final int FIRST = 10;
+    private static final int LAST = 11;
+    private static final int CATEGORY = 12;
+    private static final int CATEGORY_COUNT = 13;
+    private static final int MORE = 14;
+    // Longs per slot, at LONGS * slot + field.
+    private static final int LONGS = 4;
+    private static final int HELPFUL = 0;
+    private static final int TOTAL = 1;
+    private static final int MAX = 2;
+    private static final int SQUARES = 3;
+    // Pool entries (category, count, next entry or -1), at 3 * entry.
+    private static final int ENTRY = 3;
+
     private final TallyUnit unit;
     private final KeyIndex index = new KeyIndex();
     private final Categories categories = new Categories();
-    /** Reviews per (slot, category): key = slot << 20 | category id. */
-    private final LongIntMap byCategory = new LongIntMap(1 << 12);
-
     private int capacity = 1 << 10;
-    private int[] reviews = new int[capacity];
-    private long[] helpful = new long[capacity];
-    private long[] total = new long[capacity];
-    private int[] voted = new int[capacity];
-    private int[] majority = new int[capacity];
-    private long[] maxVotes = new long[capacity];
-    private long[] sumSquares = new long[capacity];
-    private int[] verified = new int[capacity];
-    private int[] incentivised = new int[capacity];
-    /** Five counters per slot: stars[5 * slot + (stars - 1)]. */
-    private int[] stars = new int[5 * capacity];
-    private int[] firstDay = filledDays(capacity);
-    private int[] lastDay = filledDays(capacity);
+    private int[] ints = new int[INTS * capacity];
+    private long[] longs = new long[LONGS * capacity];
+    private int[] pool = new int[ENTRY * 64];
+    private int poolUsed;
+    /** Slots below this are initialised. */
+    private int slots;
 
     public TallyTable() {
         this(TallyUnit.REVIEWER);
@@ -60,7 +80,7 @@ public final class TallyTable implements ReviewSink {
         int s = unit == TallyUnit.REVIEWER
                 ? index.slotOf(r.buf, r.reviewerOff, r.reviewerLen)
                 : index.slotOf(r.buf, r.reviewOff, r.reviewLen);
-        ensure(s);
+        ready(s);
         int cat = categories.idOf(r.categoryBuf, r.categoryOff, r.categoryLen);
         addReview(s, r.helpful, r.total, r.stars, r.verified == 1, r.incentivised == 1, cat, r.epochDay);
     }
@@ -72,42 +92,70 @@ public final class TallyTable implements ReviewSink {
             throw new IllegalArgumentException("need 0 <= helpful <= total, got " + helpfulVotes + "/" + totalVotes);
         }
         int s = index.slotOf(id);
-        ensure(s);
+        ready(s);
         addReview(s, helpfulVotes, totalVotes, starRating, isVerified, isIncentivised, categories.idOf(category), epochDay);
     }
 
     private void addReview(int s, long h, long t, int star, boolean ver, boolean inc, int cat, int day) {
-        reviews[s]++;
-        helpful[s] += h;
-        total[s] += t;
+        int[] a = ints;
+        int b = INTS * s;
+        a[b + REVIEWS]++;
         if (t > 0) {
-            voted[s]++;
+            a[b + VOTED]++;
             if (2 * h > t) {
-                majority[s]++;
+                a[b + MAJORITY]++;
             }
         }
-        if (t > maxVotes[s]) {
-            maxVotes[s] = t;
-        }
-        sumSquares[s] += t * t;
         if (ver) {
-            verified[s]++;
+            a[b + VERIFIED]++;
         }
         if (inc) {
-            incentivised[s]++;
+            a[b + INCENTIVISED]++;
         }
         if (star >= 1 && star <= 5) {
-            stars[5 * s + star - 1]++;
+            a[b + STARS + star - 1]++;
         }
         if (day != ReviewRow.NO_DATE) {
-            if (firstDay[s] == ReviewerTally.NO_DATE || day < firstDay[s]) {
-                firstDay[s] = day;
-            }
-            if (lastDay[s] == ReviewerTally.NO_DATE || day > lastDay[s]) {
-                lastDay[s] = day;
+            a[b + FIRST] = ReviewerTally.minDay(a[b + FIRST], day);
+            a[b + LAST] = ReviewerTally.maxDay(a[b + LAST], day);
+        }
+        long[] l = longs;
+        int c = LONGS * s;
+        l[c + HELPFUL] += h;
+        l[c + TOTAL] += t;
+        if (t > l[c + MAX]) {
+            l[c + MAX] = t;
+        }
+        l[c + SQUARES] += t * t;
+        addCategory(s, cat, 1);
+    }
+
+    private void addCategory(int s, int cat, int n) {
+        int b = INTS * s;
+        if (ints[b + CATEGORY] == cat) {
+            ints[b + CATEGORY_COUNT] += n;
+            return;
+        }
+        if (ints[b + CATEGORY] < 0) {
+            ints[b + CATEGORY] = cat;
+            ints[b + CATEGORY_COUNT] = n;
+            return;
+        }
+        for (int e = ints[b + MORE]; e >= 0; e = pool[e + 2]) {
+            if (pool[e] == cat) {
+                pool[e + 1] += n;
+                return;
             }
         }
-        byCategory.add((long) s << 20 | cat, 1);
+        if (poolUsed + ENTRY > pool.length) {
+            pool = Arrays.copyOf(pool, 2 * pool.length);
+        }
+        int e = poolUsed;
+        pool[e] = cat;
+        pool[e + 1] = n;
+        pool[e + 2] = ints[b + MORE];
+        ints[b + MORE] = e;
+        poolUsed += ENTRY;
     }
 
     /** Adds every tally of {@code other} into this table (same meaning as {@link ReviewerTally#merge}). */
@@ -115,58 +163,104 @@ public final class TallyTable implements ReviewSink {
         if (other.unit != unit) {
             throw new IllegalArgumentException("cannot merge a " + other.unit + " tally into a " + unit + " tally");
         }
-        int[] slotMap = new int[other.size()];
-        for (int o = 0; o < other.size(); o++) {
-            int s = index.slotOf(other.index.id(o));
-            ensure(s);
-            slotMap[o] = s;
-            reviews[s] += other.reviews[o];
-            helpful[s] += other.helpful[o];
-            total[s] += other.total[o];
-            voted[s] += other.voted[o];
-            majority[s] += other.majority[o];
-            maxVotes[s] = Math.max(maxVotes[s], other.maxVotes[o]);
-            sumSquares[s] += other.sumSquares[o];
-            verified[s] += other.verified[o];
-            incentivised[s] += other.incentivised[o];
-            for (int k = 0; k < 5; k++) {
-                stars[5 * s + k] += other.stars[5 * o + k];
-            }
-            firstDay[s] = ReviewerTally.minDay(firstDay[s], other.firstDay[o]);
-            lastDay[s] = ReviewerTally.maxDay(lastDay[s], other.lastDay[o]);
-        }
         int[] catMap = new int[other.categories.size()];
         for (int c = 0; c < catMap.length; c++) {
             catMap[c] = categories.idOf(other.categories.name(c));
         }
-        other.byCategory.forEach((key, count) -> {
-            int o = (int) (key >>> 20);
-            int c = (int) (key & 0xFFFFF);
-            byCategory.add((long) slotMap[o] << 20 | catMap[c], count);
-        });
+        TallyRecord r = new TallyRecord();
+        for (int o = 0; o < other.size(); o++) {
+            other.load(o, r, catMap);
+            int s = index.slotOf(other.index, o);
+            ready(s);
+            add(s, r);
+        }
     }
 
     /** Adds one whole tally (as read back from a reviewer table file). */
     public void add(ReviewerTally t) {
-        TallyTable one = new TallyTable(unit);
-        int s = one.index.slotOf(t.id());
-        one.ensure(s);
-        one.reviews[s] = Math.toIntExact(t.reviews());
-        one.helpful[s] = t.helpfulVotes();
-        one.total[s] = t.totalVotes();
-        one.voted[s] = Math.toIntExact(t.votedReviews());
-        one.majority[s] = Math.toIntExact(t.majorityReviews());
-        one.maxVotes[s] = t.maxReviewVotes();
-        one.sumSquares[s] = t.sumSquaredVotes();
-        one.verified[s] = Math.toIntExact(t.verified());
-        one.incentivised[s] = Math.toIntExact(t.incentivised());
+        TallyRecord r = new TallyRecord();
+        r.reviews = Math.toIntExact(t.reviews());
+        r.helpful = t.helpfulVotes();
+        r.total = t.totalVotes();
+        r.voted = Math.toIntExact(t.votedReviews());
+        r.majority = Math.toIntExact(t.majorityReviews());
+        r.maxVotes = t.maxReviewVotes();
+        r.sumSquares = t.sumSquaredVotes();
+        r.verified = Math.toIntExact(t.verified());
+        r.incentivised = Math.toIntExact(t.incentivised());
         for (int k = 1; k <= 5; k++) {
-            one.stars[5 * s + k - 1] = Math.toIntExact(t.stars().of(k));
+            r.stars[k - 1] = Math.toIntExact(t.stars().of(k));
         }
-        one.firstDay[s] = t.firstDay();
-        one.lastDay[s] = t.lastDay();
-        t.reviewsByCategory().forEach((c, n) -> one.byCategory.add((long) s << 20 | one.categories.idOf(c), Math.toIntExact(n)));
-        mergeFrom(one);
+        r.firstDay = t.firstDay();
+        r.lastDay = t.lastDay();
+        t.reviewsByCategory().forEach((c, n) -> r.addCategory(categories.idOf(c), Math.toIntExact(n)));
+        int s = index.slotOf(t.id());
+        ready(s);
+        add(s, r);
+    }
+
+    /** Adds the tally {@code r} (category ids of this table) to slot {@code s}. */
+    private void add(int s, TallyRecord r) {
+        int b = INTS * s;
+        ints[b + REVIEWS] += r.reviews;
+        ints[b + VOTED] += r.voted;
+        ints[b + MAJORITY] += r.majority;
+        ints[b + VERIFIED] += r.verified;
+        ints[b + INCENTIVISED] += r.incentivised;
+        for (int k = 0; k < 5; k++) {
+            ints[b + STARS + k] += r.stars[k];
+        }
+        ints[b + FIRST] = ReviewerTally.minDay(ints[b + FIRST], r.firstDay);
+        ints[b + LAST] = ReviewerTally.maxDay(ints[b + LAST], r.lastDay);
+        int c = LONGS * s;
+        longs[c + HELPFUL] += r.helpful;
+        longs[c + TOTAL] += r.total;
+        longs[c + MAX] = Math.max(longs[c + MAX], r.maxVotes);
+        longs[c + SQUARES] += r.sumSquares;
+        for (int j = 0; j < r.categories; j++) {
+            addCategory(s, r.categoryIds[j], r.categoryCounts[j]);
+        }
+    }
+
+    /**
+     * Fills {@code r} with the tally of {@code slot}, its category ids mapped through
+     * {@code categoryMap} (null: this table's own ids).
+     */
+    void load(int slot, TallyRecord r, int[] categoryMap) {
+        if (index.isNumeric(slot)) {
+            r.numericId(index.number(slot));
+        } else {
+            if (r.id.length < index.idLength(slot)) {
+                r.id = new byte[Math.max(index.idLength(slot), 2 * r.id.length)];
+            }
+            r.idLength = index.idBytes(slot, r.id);
+            r.numeric = false;
+        }
+        int b = INTS * slot;
+        r.reviews = ints[b + REVIEWS];
+        r.voted = ints[b + VOTED];
+        r.majority = ints[b + MAJORITY];
+        r.verified = ints[b + VERIFIED];
+        r.incentivised = ints[b + INCENTIVISED];
+        System.arraycopy(ints, b + STARS, r.stars, 0, 5);
+        r.firstDay = ints[b + FIRST];
+        r.lastDay = ints[b + LAST];
+        int c = LONGS * slot;
+        r.helpful = longs[c + HELPFUL];
+        r.total = longs[c + TOTAL];
+        r.maxVotes = longs[c + MAX];
+        r.sumSquares = longs[c + SQUARES];
+        r.categories = 0;
+        if (ints[b + CATEGORY] >= 0) {
+            r.addCategory(mapped(ints[b + CATEGORY], categoryMap), ints[b + CATEGORY_COUNT]);
+        }
+        for (int e = ints[b + MORE]; e >= 0; e = pool[e + 2]) {
+            r.addCategory(mapped(pool[e], categoryMap), pool[e + 1]);
+        }
+    }
+
+    private static int mapped(int category, int[] map) {
+        return map == null ? category : map[category];
     }
 
     /** The slot of {@code id}, or -1 when it was not tallied. */
@@ -181,50 +275,47 @@ public final class TallyTable implements ReviewSink {
 
     public long reviews(int slot) {
         check(slot);
-        return reviews[slot];
+        return ints[INTS * slot + REVIEWS];
     }
 
     public long helpfulVotes(int slot) {
         check(slot);
-        return helpful[slot];
+        return longs[LONGS * slot + HELPFUL];
     }
 
     public long totalVotes(int slot) {
         check(slot);
-        return total[slot];
+        return longs[LONGS * slot + TOTAL];
     }
 
     public long votedReviews(int slot) {
         check(slot);
-        return voted[slot];
+        return ints[INTS * slot + VOTED];
     }
 
     public long majorityReviews(int slot) {
         check(slot);
-        return majority[slot];
+        return ints[INTS * slot + MAJORITY];
     }
 
     public long maxReviewVotes(int slot) {
         check(slot);
-        return maxVotes[slot];
+        return longs[LONGS * slot + MAX];
     }
 
     /** The whole tally of one slot as a value. */
     public ReviewerTally get(int slot) {
         check(slot);
+        TallyRecord r = new TallyRecord();
+        load(slot, r, null);
         TreeMap<String, Long> cats = new TreeMap<>();
-        // Categories are few; scanning them per reviewer keeps the counters in one primitive map.
-        for (int c = 0; c < categories.size(); c++) {
-            int n = byCategory.get((long) slot << 20 | c);
-            if (n > 0) {
-                cats.put(categories.name(c), (long) n);
-            }
+        for (int j = 0; j < r.categories; j++) {
+            cats.merge(categories.name(r.categoryIds[j]), (long) r.categoryCounts[j], Long::sum);
         }
-        int b = 5 * slot;
-        return new ReviewerTally(index.id(slot), reviews[slot], helpful[slot], total[slot], voted[slot],
-                majority[slot], maxVotes[slot], sumSquares[slot], verified[slot], incentivised[slot],
-                new StarCounts(stars[b], stars[b + 1], stars[b + 2], stars[b + 3], stars[b + 4]), cats,
-                firstDay[slot], lastDay[slot]);
+        int[] st = r.stars;
+        return new ReviewerTally(index.id(slot), r.reviews, r.helpful, r.total, r.voted, r.majority, r.maxVotes,
+                r.sumSquares, r.verified, r.incentivised, new StarCounts(st[0], st[1], st[2], st[3], st[4]), cats,
+                r.firstDay, r.lastDay);
     }
 
     /** Every category name seen, in order of first appearance. */
@@ -234,14 +325,7 @@ public final class TallyTable implements ReviewSink {
 
     /** Slots ordered by id (String order): an order independent of input order and thread count. */
     public int[] sortedById() {
-        String[] ids = new String[size()];
-        Integer[] order = new Integer[size()];
-        for (int i = 0; i < ids.length; i++) {
-            ids[i] = index.id(i);
-            order[i] = i;
-        }
-        Arrays.sort(order, (a, b) -> ids[a].compareTo(ids[b]));
-        return Arrays.stream(order).mapToInt(Integer::intValue).toArray();
+        return IdOrder.sortedSlots(index);
     }
 
     /** Every tally, ordered by id. */
@@ -254,156 +338,58 @@ public final class TallyTable implements ReviewSink {
      * id that is the same in every table, so that the partitions of many tables can be merged one
      * at a time. Each stream gets this table's category names first and an end mark last.
      */
-    void spill(java.io.DataOutputStream[] parts) throws java.io.IOException {
-        for (java.io.DataOutputStream out : parts) {
-            out.writeInt(categories.size());
-            for (int c = 0; c < categories.size(); c++) {
-                out.writeUTF(categories.name(c));
-            }
+    void spill(DataOutputStream[] parts) throws IOException {
+        for (DataOutputStream out : parts) {
+            writeCategoryNames(out);
         }
+        TallyRecord r = new TallyRecord();
         for (int s = 0; s < size(); s++) {
-            writeSlot(s, parts[index.partition(s, parts.length)]);
+            load(s, r, null);
+            r.write(parts[index.partition(s, parts.length)]);
         }
-        for (java.io.DataOutputStream out : parts) {
-            out.writeByte(END);
+        for (DataOutputStream out : parts) {
+            out.writeByte(TallyRecord.END);
         }
     }
 
     /** Writes the tallies of {@code slots}, in that order, in the format of {@link #spill}. */
-    void writeRun(int[] slots, java.io.DataOutputStream out) throws java.io.IOException {
+    void writeRun(int[] slots, DataOutputStream out) throws IOException {
+        writeCategoryNames(out);
+        TallyRecord r = new TallyRecord();
+        for (int s : slots) {
+            load(s, r, null);
+            r.write(out);
+        }
+        out.writeByte(TallyRecord.END);
+    }
+
+    private void writeCategoryNames(DataOutputStream out) throws IOException {
         out.writeInt(categories.size());
         for (int c = 0; c < categories.size(); c++) {
             out.writeUTF(categories.name(c));
         }
-        for (int s : slots) {
-            writeSlot(s, out);
-        }
-        out.writeByte(END);
-    }
-
-    private static final int END = 2;
-
-    private void writeSlot(int s, java.io.DataOutputStream out) throws java.io.IOException {
-        index.writeId(s, out);
-        out.writeInt(reviews[s]);
-        out.writeLong(helpful[s]);
-        out.writeLong(total[s]);
-        out.writeInt(voted[s]);
-        out.writeInt(majority[s]);
-        out.writeLong(maxVotes[s]);
-        out.writeLong(sumSquares[s]);
-        out.writeInt(verified[s]);
-        out.writeInt(incentivised[s]);
-        for (int k = 0; k < 5; k++) {
-            out.writeInt(stars[5 * s + k]);
-        }
-        out.writeInt(firstDay[s]);
-        out.writeInt(lastDay[s]);
-        int n = 0;
-        for (int c = 0; c < categories.size(); c++) {
-            if (byCategory.get((long) s << 20 | c) > 0) {
-                n++;
-            }
-        }
-        out.writeInt(n);
-        for (int c = 0; c < categories.size(); c++) {
-            int v = byCategory.get((long) s << 20 | c);
-            if (v > 0) {
-                out.writeInt(c);
-                out.writeInt(v);
-            }
-        }
-    }
-
-    /** Adds every tally of one stream written by {@link #spill} or {@link #writeRun} (same meaning as {@link #mergeFrom}). */
-    void readSpill(java.io.DataInputStream in) throws java.io.IOException {
-        int nc = in.readInt();
-        int[] catMap = new int[nc];
-        for (int c = 0; c < nc; c++) {
-            catMap[c] = categories.idOf(in.readUTF());
-        }
-        byte[][] scratch = {new byte[64]};
-        int kind;
-        while ((kind = in.readByte()) != END) {
-            int s = index.readId(kind, in, scratch);
-            ensure(s);
-            reviews[s] += in.readInt();
-            helpful[s] += in.readLong();
-            total[s] += in.readLong();
-            voted[s] += in.readInt();
-            majority[s] += in.readInt();
-            maxVotes[s] = Math.max(maxVotes[s], in.readLong());
-            sumSquares[s] += in.readLong();
-            verified[s] += in.readInt();
-            incentivised[s] += in.readInt();
-            for (int k = 0; k < 5; k++) {
-                stars[5 * s + k] += in.readInt();
-            }
-            firstDay[s] = ReviewerTally.minDay(firstDay[s], in.readInt());
-            lastDay[s] = ReviewerTally.maxDay(lastDay[s], in.readInt());
-            int n = in.readInt();
-            for (int j = 0; j < n; j++) {
-                int c = in.readInt();
-                byCategory.add((long) s << 20 | catMap[c], in.readInt());
-            }
-        }
     }
 
     /**
-     * Reads one stream written by {@link #writeRun} tally by tally, for merging sorted runs without
-     * holding them: {@link #next()} gives the tallies in the order they were written.
+     * The category names at the head of a stream written by {@link #spill} or {@link #writeRun},
+     * as ids of {@code into}.
      */
-    static final class RunReader implements AutoCloseable {
-        private final java.io.DataInputStream in;
-        private final String[] cats;
-
-        RunReader(java.io.DataInputStream in) throws java.io.IOException {
-            this.in = in;
-            cats = new String[in.readInt()];
-            for (int c = 0; c < cats.length; c++) {
-                cats[c] = in.readUTF();
-            }
+    static int[] readCategoryNames(DataInputStream in, Categories into) throws IOException {
+        int[] map = new int[in.readInt()];
+        for (int c = 0; c < map.length; c++) {
+            map[c] = into.idOf(in.readUTF());
         }
+        return map;
+    }
 
-        /** The next tally, or empty at the end mark. */
-        java.util.Optional<ReviewerTally> next() throws java.io.IOException {
-            int kind = in.readByte();
-            if (kind == END) {
-                return java.util.Optional.empty();
-            }
-            String id;
-            if (kind == 0) {
-                id = Long.toString(in.readLong());
-            } else {
-                byte[] b = new byte[in.readInt()];
-                in.readFully(b);
-                id = new String(b, java.nio.charset.StandardCharsets.UTF_8);
-            }
-            long reviews = in.readInt();
-            long h = in.readLong();
-            long t = in.readLong();
-            long voted = in.readInt();
-            long majority = in.readInt();
-            long max = in.readLong();
-            long sq = in.readLong();
-            long ver = in.readInt();
-            long inc = in.readInt();
-            StarCounts st = new StarCounts(in.readInt(), in.readInt(), in.readInt(), in.readInt(), in.readInt());
-            int first = in.readInt();
-            int last = in.readInt();
-            int n = in.readInt();
-            TreeMap<String, Long> byCat = new TreeMap<>();
-            for (int j = 0; j < n; j++) {
-                String c = cats[in.readInt()];
-                byCat.merge(c, (long) in.readInt(), Long::sum);
-            }
-            return java.util.Optional.of(new ReviewerTally(id, reviews, h, t, voted, majority, max, sq, ver, inc, st, byCat,
-                    first, last));
-        }
-
-        @Override
-        public void close() throws java.io.IOException {
-            in.close();
+    /** Adds every tally of one stream written by {@link #spill} or {@link #writeRun} (same meaning as {@link #mergeFrom}). */
+    void readSpill(DataInputStream in) throws IOException {
+        int[] catMap = readCategoryNames(in, categories);
+        TallyRecord r = new TallyRecord();
+        while (r.read(in, catMap)) {
+            int s = r.numeric ? index.slotOfNumber(r.number) : index.slotOf(r.id, 0, r.idLength);
+            ready(s);
+            add(s, r);
         }
     }
 
@@ -420,7 +406,7 @@ public final class TallyTable implements ReviewSink {
 
     /** Rough heap footprint, for the memory budget. */
     public long memoryBytes() {
-        return index.memoryBytes() + byCategory.memoryBytes() + (long) capacity * (4 * 6 + 8 * 4 + 4 * 5 + 4 * 2);
+        return index.memoryBytes() + pool.length * 4L + (long) capacity * (INTS * 4 + LONGS * 8);
     }
 
     private void check(int slot) {
@@ -429,31 +415,22 @@ public final class TallyTable implements ReviewSink {
         }
     }
 
-    private void ensure(int slot) {
-        if (slot < capacity) {
+    /** Makes slot {@code s} (at most one past the last) usable: room, and empty counters. */
+    private void ready(int s) {
+        if (s < slots) {
             return;
         }
-        int n = Math.max(capacity * 2, slot + 1);
-        reviews = Arrays.copyOf(reviews, n);
-        helpful = Arrays.copyOf(helpful, n);
-        total = Arrays.copyOf(total, n);
-        voted = Arrays.copyOf(voted, n);
-        majority = Arrays.copyOf(majority, n);
-        maxVotes = Arrays.copyOf(maxVotes, n);
-        sumSquares = Arrays.copyOf(sumSquares, n);
-        verified = Arrays.copyOf(verified, n);
-        incentivised = Arrays.copyOf(incentivised, n);
-        stars = Arrays.copyOf(stars, 5 * n);
-        firstDay = Arrays.copyOf(firstDay, n);
-        lastDay = Arrays.copyOf(lastDay, n);
-        Arrays.fill(firstDay, capacity, n, ReviewerTally.NO_DATE);
-        Arrays.fill(lastDay, capacity, n, ReviewerTally.NO_DATE);
-        capacity = n;
-    }
-
-    private static int[] filledDays(int n) {
-        int[] a = new int[n];
-        Arrays.fill(a, ReviewerTally.NO_DATE);
-        return a;
+        if (s >= capacity) {
+            int n = (int) Math.min(Integer.MAX_VALUE / INTS, Math.max(capacity + (capacity >> 1), s + 1L));
+            ints = Arrays.copyOf(ints, INTS * n);
+            longs = Arrays.copyOf(longs, LONGS * n);
+            capacity = n;
+        }
+        int b = INTS * s;
+        ints[b + FIRST] = ReviewerTally.NO_DATE;
+        ints[b + LAST] = ReviewerTally.NO_DATE;
+        ints[b + CATEGORY] = -1;
+        ints[b + MORE] = -1;
+        slots = s + 1;
     }
 }

@@ -102,13 +102,20 @@ class BoundedTallyTest {
     }
 
     @Test
-    void fastDecimalMatchesTheFormatter() {
+    void fastDecimalMatchesTheFormatter() throws IOException {
         Random rnd = new Random(5);
-        for (int i = 0; i < 200_000; i++) {
-            long t = 1 + rnd.nextInt(5000);
-            double v = i % 2 == 0 ? (double) rnd.nextInt((int) t + 1) / t : rnd.nextDouble();
-            // Reference: java.util.Formatter's %.6f (HALF_UP on the exact binary value).
-            assertThat(ReviewerTableFile.decimal(v)).isEqualTo(String.format(java.util.Locale.ROOT, "%.6f", v));
+        double[] values = new double[200_000];
+        StringBuilder expected = new StringBuilder(String.join(",", ReviewerTableFile.HEADER)).append('\n');
+        java.io.ByteArrayOutputStream bytes = new java.io.ByteArrayOutputStream();
+        try (ReviewerTableFile.Rows rows = new ReviewerTableFile.Rows(bytes, List.of())) {
+            for (int i = 0; i < values.length; i++) {
+                long t = 1 + rnd.nextInt(5000);
+                values[i] = i % 2 == 0 ? (double) rnd.nextInt((int) t + 1) / t : rnd.nextDouble();
+                rows.decimal(values[i]);
+                // Reference: java.util.Formatter's %.6f (HALF_UP on the exact binary value).
+                expected.append(String.format(java.util.Locale.ROOT, "%.6f", values[i]));
+            }
         }
+        assertThat(bytes.toString(java.nio.charset.StandardCharsets.UTF_8)).isEqualTo(expected.toString());
     }
 }

@@ -31,6 +31,42 @@ class ReviewerTableFileTest {
         assertThat(back.toSortedList()).isEqualTo(expected);
     }
 
+    /**
+     * Each row as an independent formatter builds it from the tally's values: java.util.Formatter's
+     * {@code %.6f} for shares, {@link java.time.LocalDate#toString} for dates, {@link Csv#text} for
+     * text cells, categories in String order.
+     */
+    private static String expectedRow(ReviewerTally t) {
+        java.util.StringJoiner cats = new java.util.StringJoiner(";");
+        t.reviewsByCategory().forEach((c, n) -> cats.add(c.replace(";", "_").replace(":", "_") + ":" + n));
+        java.util.function.DoubleFunction<String> f = v -> String.format(java.util.Locale.ROOT, "%.6f", v);
+        java.util.function.IntFunction<String> day = d -> d == ReviewerTally.NO_DATE ? "" : java.time.LocalDate.ofEpochDay(d).toString();
+        return String.join(",", Csv.text(t.id()), "" + t.reviews(), "" + t.helpfulVotes(), "" + t.totalVotes(),
+                t.totalVotes() == 0 ? "" : f.apply(t.helpfulShare()), "" + t.votedReviews(), "" + t.majorityReviews(),
+                "" + t.maxReviewVotes(), f.apply(t.maxReviewShare()), "" + t.sumSquaredVotes(), f.apply(t.herfindahl()),
+                "" + t.verified(), "" + t.incentivised(), "" + t.stars().one(), "" + t.stars().two(), "" + t.stars().three(),
+                "" + t.stars().four(), "" + t.stars().five(), day.apply(t.firstDay()), day.apply(t.lastDay()),
+                Csv.text(cats.toString()));
+    }
+
+    @Test
+    void rowsAreFormattedAsAnIndependentFormatterWritesThem() throws IOException {
+        TallyTable t = TallyTableTest.tableOf(TallyTableTest.randomReviews(new Random(11), 3000));
+        t.add("=cmd", 1, 1, 5, true, false, "a;b:c", 18000);
+        t.add("-7", 0, 0, 5, true, false, "=sum", -800_000);
+        t.add("r\u00e9vieuse", 3, 7, 2, false, true, "caf\u00e9, th\u00e9", 3_000_000);
+        t.add("r\u00e9vieuse", 1, 2, 1, false, true, "caf\u00e9", 2_932_897);
+        t.add("q\"uote", 2, 2, 5, false, false, "\"quoted\"", ReviewerTally.NO_DATE);
+        t.add("8", 0, 3, 4, true, false, "books", 0);
+        t.add("8", 3, 3, 4, true, false, "'@x", 0);
+        Path f = dir.resolve("reviewers.csv");
+        ReviewerTableFile.write(t, f);
+        List<String> expected = new java.util.ArrayList<>();
+        expected.add(String.join(",", ReviewerTableFile.HEADER));
+        t.toSortedList().forEach(r -> expected.add(expectedRow(r)));
+        assertThat(Files.readAllLines(f)).containsExactlyElementsOf(expected);
+    }
+
     private static ReviewerTally withCategory(ReviewerTally r, String cat) {
         return new ReviewerTally(r.id(), r.reviews(), r.helpfulVotes(), r.totalVotes(), r.votedReviews(),
                 r.majorityReviews(), r.maxReviewVotes(), r.sumSquaredVotes(), r.verified(), r.incentivised(),
