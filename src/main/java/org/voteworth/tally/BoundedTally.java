@@ -1,9 +1,5 @@
 package org.voteworth.tally;
 
-import java.io.BufferedInputStream;
-import java.io.BufferedOutputStream;
-import java.io.DataInputStream;
-import java.io.DataOutputStream;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.file.Files;
@@ -93,25 +89,73 @@ public final class BoundedTally implements AutoCloseable {
             ReviewerTableFile.write(all, file);
             return;
         }
-        for (Worker w : workers) {
-            w.spill();
-        }
+        // As many threads as scanned: each holds one partition (about 1/PARTITIONS of the reviewers) at a time.
+        int threads = Math.max(1, workers.size());
+        inParallel(workers.size(), threads, w -> workers.get(w).spill());
         List<Path> runs = new ArrayList<>();
         for (int p = 0; p < PARTITIONS; p++) {
+            runs.add(spillDir.resolve("run-" + p + ".bin"));
+        }
+        inParallel(PARTITIONS, threads, p -> {
             TallyTable t = new TallyTable(unit);
             for (Path f : partitionFiles(p)) {
-                try (DataInputStream in = input(f)) {
+                try (SpillFile.In in = SpillFile.open(f)) {
                     t.readSpill(in);
                 }
                 Files.delete(f);
             }
-            Path run = spillDir.resolve("run-" + p + ".bin");
-            try (DataOutputStream out = output(run)) {
+            try (SpillFile.Out out = SpillFile.create(runs.get(p))) {
                 t.writeRun(t.sortedById(), out);
             }
-            runs.add(run);
-        }
+        });
         reviewers = mergeRuns(runs, file);
+    }
+
+    /** One of several numbered pieces of work. */
+    private interface Task {
+        void run(int i) throws IOException;
+    }
+
+    /** Runs {@code task} for 0 .. n-1 on up to {@code threads} threads; throws the first failure after all stopped. */
+    private static void inParallel(int n, int threads, Task task) throws IOException {
+        java.util.concurrent.atomic.AtomicInteger next = new java.util.concurrent.atomic.AtomicInteger();
+        java.util.concurrent.atomic.AtomicReference<Throwable> failure = new java.util.concurrent.atomic.AtomicReference<>();
+        Runnable loop = () -> {
+            int i;
+            while (failure.get() == null && (i = next.getAndIncrement()) < n) {
+                try {
+                    task.run(i);
+                } catch (Throwable t) {
+                    failure.compareAndSet(null, t);
+                }
+            }
+        };
+        List<Thread> pool = new ArrayList<>();
+        for (int t = 1; t < Math.min(threads, n); t++) {
+            Thread th = new Thread(loop, "merge-" + t);
+            th.setDaemon(true);
+            th.start();
+            pool.add(th);
+        }
+        loop.run();
+        for (Thread th : pool) {
+            try {
+                th.join();
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                throw new java.io.InterruptedIOException("interrupted while merging spilled tallies");
+            }
+        }
+        Throwable t = failure.get();
+        if (t instanceof IOException io) {
+            throw io;
+        }
+        if (t instanceof RuntimeException r) {
+            throw r;
+        }
+        if (t instanceof Error e) {
+            throw e;
+        }
     }
 
     /** The workers' tables merged into one, ignoring the budget (for commands that rank in memory). */
@@ -137,12 +181,12 @@ public final class BoundedTally implements AutoCloseable {
 
     /** One sorted run being merged: its stream, its category ids in the merge's dictionary, its current tally. */
     private static final class Cursor {
-        final DataInputStream in;
+        final SpillFile.In in;
         final int[] categoryMap;
         final TallyRecord current = new TallyRecord();
 
         Cursor(Path run, Categories dictionary) throws IOException {
-            in = input(run);
+            in = SpillFile.open(run);
             categoryMap = TallyTable.readCategoryNames(in, dictionary);
         }
 
@@ -181,14 +225,6 @@ public final class BoundedTally implements AutoCloseable {
                 c.in.close();
             }
         }
-    }
-
-    private static DataInputStream input(Path f) throws IOException {
-        return new DataInputStream(new BufferedInputStream(Files.newInputStream(f), 1 << 16));
-    }
-
-    private static DataOutputStream output(Path f) throws IOException {
-        return new DataOutputStream(new BufferedOutputStream(Files.newOutputStream(f), 1 << 16));
     }
 
     private synchronized Path spillFolder() throws IOException {
@@ -262,14 +298,14 @@ public final class BoundedTally implements AutoCloseable {
             }
             Path dir = spillFolder();
             int n = nextSpill();
-            DataOutputStream[] parts = new DataOutputStream[PARTITIONS];
+            SpillFile.Out[] parts = new SpillFile.Out[PARTITIONS];
             try {
                 for (int p = 0; p < PARTITIONS; p++) {
-                    parts[p] = output(dir.resolve(String.format(java.util.Locale.ROOT, "spill-w%03d-%06d-p%d.bin", number, n, p)));
+                    parts[p] = SpillFile.create(dir.resolve(String.format(java.util.Locale.ROOT, "spill-w%03d-%06d-p%d.bin", number, n, p)));
                 }
                 table.spill(parts);
             } finally {
-                for (DataOutputStream o : parts) {
+                for (SpillFile.Out o : parts) {
                     if (o != null) {
                         o.close();
                     }

@@ -1,7 +1,5 @@
 package org.voteworth.tally;
 
-import java.io.DataInput;
-import java.io.DataOutput;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.util.Arrays;
@@ -72,34 +70,33 @@ final class TallyRecord {
         categoryCounts[categories++] = count;
     }
 
-    /** Writes this tally in the spill format: kind byte, id, the counters, the categories. */
-    void write(DataOutput out) throws IOException {
+    /** Writes this tally in the spill format ({@link SpillFile}): kind byte, id, the counters, the categories. */
+    void write(SpillFile.Out out) throws IOException {
         if (numeric) {
-            out.writeByte(NUMERIC_ID);
-            out.writeLong(number);
+            out.write(NUMERIC_ID);
+            out.number(number);
         } else {
-            out.writeByte(BYTES_ID);
-            out.writeInt(idLength);
-            out.write(id, 0, idLength);
+            out.write(BYTES_ID);
+            out.bytes(id, 0, idLength);
         }
-        out.writeInt(reviews);
-        out.writeLong(helpful);
-        out.writeLong(total);
-        out.writeInt(voted);
-        out.writeInt(majority);
-        out.writeLong(maxVotes);
-        out.writeLong(sumSquares);
-        out.writeInt(verified);
-        out.writeInt(incentivised);
+        out.number(reviews);
+        out.number(helpful);
+        out.number(total);
+        out.number(voted);
+        out.number(majority);
+        out.number(maxVotes);
+        out.number(sumSquares);
+        out.number(verified);
+        out.number(incentivised);
         for (int k = 0; k < 5; k++) {
-            out.writeInt(stars[k]);
+            out.number(stars[k]);
         }
-        out.writeInt(firstDay);
-        out.writeInt(lastDay);
-        out.writeInt(categories);
+        out.signed(firstDay);
+        out.signed(lastDay);
+        out.number(categories);
         for (int j = 0; j < categories; j++) {
-            out.writeInt(categoryIds[j]);
-            out.writeInt(categoryCounts[j]);
+            out.number(categoryIds[j]);
+            out.number(categoryCounts[j]);
         }
     }
 
@@ -107,42 +104,40 @@ final class TallyRecord {
      * Reads the next tally written by {@link #write}, mapping its category ids through
      * {@code categoryMap}; false at the end mark.
      */
-    boolean read(DataInput in, int[] categoryMap) throws IOException {
-        int kind = in.readByte();
+    boolean read(SpillFile.In in, int[] categoryMap) throws IOException {
+        int kind = in.read();
         if (kind == END) {
             return false;
         }
         if (kind == NUMERIC_ID) {
-            numericId(in.readLong());
+            numericId(in.number());
         } else {
-            int len = in.readInt();
-            if (id.length < len) {
-                id = new byte[Math.max(len, 2 * id.length)];
-            }
-            in.readFully(id, 0, len);
-            idLength = len;
+            id = in.bytes(id, length);
+            idLength = length[0];
             numeric = false;
         }
-        reviews = in.readInt();
-        helpful = in.readLong();
-        total = in.readLong();
-        voted = in.readInt();
-        majority = in.readInt();
-        maxVotes = in.readLong();
-        sumSquares = in.readLong();
-        verified = in.readInt();
-        incentivised = in.readInt();
+        reviews = (int) in.number();
+        helpful = in.number();
+        total = in.number();
+        voted = (int) in.number();
+        majority = (int) in.number();
+        maxVotes = in.number();
+        sumSquares = in.number();
+        verified = (int) in.number();
+        incentivised = (int) in.number();
         for (int k = 0; k < 5; k++) {
-            stars[k] = in.readInt();
+            stars[k] = (int) in.number();
         }
-        firstDay = in.readInt();
-        lastDay = in.readInt();
-        int n = in.readInt();
+        firstDay = in.signed();
+        lastDay = in.signed();
+        int n = (int) in.number();
         categories = 0;
         for (int j = 0; j < n; j++) {
-            int c = in.readInt();
-            addCategory(categoryMap[c], in.readInt());
+            int c = (int) in.number();
+            addCategory(categoryMap[c], (int) in.number());
         }
         return true;
     }
+
+    private final int[] length = new int[1];
 }

@@ -1,7 +1,5 @@
 package org.voteworth.tally;
 
-import java.io.DataInputStream;
-import java.io.DataOutputStream;
 import java.io.IOException;
 import java.util.Arrays;
 import java.util.List;
@@ -338,8 +336,8 @@ public final class TallyTable implements ReviewSink {
      * id that is the same in every table, so that the partitions of many tables can be merged one
      * at a time. Each stream gets this table's category names first and an end mark last.
      */
-    void spill(DataOutputStream[] parts) throws IOException {
-        for (DataOutputStream out : parts) {
+    void spill(SpillFile.Out[] parts) throws IOException {
+        for (SpillFile.Out out : parts) {
             writeCategoryNames(out);
         }
         TallyRecord r = new TallyRecord();
@@ -347,26 +345,26 @@ public final class TallyTable implements ReviewSink {
             load(s, r, null);
             r.write(parts[index.partition(s, parts.length)]);
         }
-        for (DataOutputStream out : parts) {
-            out.writeByte(TallyRecord.END);
+        for (SpillFile.Out out : parts) {
+            out.write(TallyRecord.END);
         }
     }
 
     /** Writes the tallies of {@code slots}, in that order, in the format of {@link #spill}. */
-    void writeRun(int[] slots, DataOutputStream out) throws IOException {
+    void writeRun(int[] slots, SpillFile.Out out) throws IOException {
         writeCategoryNames(out);
         TallyRecord r = new TallyRecord();
         for (int s : slots) {
             load(s, r, null);
             r.write(out);
         }
-        out.writeByte(TallyRecord.END);
+        out.write(TallyRecord.END);
     }
 
-    private void writeCategoryNames(DataOutputStream out) throws IOException {
-        out.writeInt(categories.size());
+    private void writeCategoryNames(SpillFile.Out out) throws IOException {
+        out.number(categories.size());
         for (int c = 0; c < categories.size(); c++) {
-            out.writeUTF(categories.name(c));
+            out.text(categories.name(c));
         }
     }
 
@@ -374,16 +372,16 @@ public final class TallyTable implements ReviewSink {
      * The category names at the head of a stream written by {@link #spill} or {@link #writeRun},
      * as ids of {@code into}.
      */
-    static int[] readCategoryNames(DataInputStream in, Categories into) throws IOException {
-        int[] map = new int[in.readInt()];
+    static int[] readCategoryNames(SpillFile.In in, Categories into) throws IOException {
+        int[] map = new int[(int) in.number()];
         for (int c = 0; c < map.length; c++) {
-            map[c] = into.idOf(in.readUTF());
+            map[c] = into.idOf(in.text());
         }
         return map;
     }
 
     /** Adds every tally of one stream written by {@link #spill} or {@link #writeRun} (same meaning as {@link #mergeFrom}). */
-    void readSpill(DataInputStream in) throws IOException {
+    void readSpill(SpillFile.In in) throws IOException {
         int[] catMap = readCategoryNames(in, categories);
         TallyRecord r = new TallyRecord();
         while (r.read(in, catMap)) {
