@@ -81,12 +81,18 @@ public final class BoundedTally implements AutoCloseable {
      * Without spilling, the workers' tables are merged in memory when that fits the budget.
      */
     public void write(Path file) throws IOException {
+        write(file, ReviewerTableFile.Rows.NONE);
+    }
+
+    /** As {@link #write(Path)}, handing each tally written, in id order, to {@code each} as well (an object per reviewer). */
+    public void write(Path file, java.util.function.Consumer<ReviewerTally> each) throws IOException {
+        Objects.requireNonNull(each, "each");
         long inMemory = workers.stream().mapToLong(w -> w.table.memoryBytes()).sum();
         // Merging and sorting in memory needs about twice the tables' footprint.
         if (!spilled() && 2 * inMemory <= budget) {
             TallyTable all = mergedInMemory();
             reviewers = all.size();
-            ReviewerTableFile.write(all, file);
+            ReviewerTableFile.write(all, file, each);
             return;
         }
         // As many threads as scanned: each holds one partition (about 1/PARTITIONS of the reviewers) at a time.
@@ -108,7 +114,7 @@ public final class BoundedTally implements AutoCloseable {
                 t.writeRun(t.sortedById(), out);
             }
         });
-        reviewers = mergeRuns(runs, file);
+        reviewers = mergeRuns(runs, file, each);
     }
 
     /** One of several numbered pieces of work. */
@@ -196,7 +202,7 @@ public final class BoundedTally implements AutoCloseable {
     }
 
     /** Merges runs sorted by id whose ids are disjoint (hash partitions) into the reviewer table; returns the rows written. */
-    private static long mergeRuns(List<Path> runs, Path file) throws IOException {
+    private static long mergeRuns(List<Path> runs, Path file, java.util.function.Consumer<ReviewerTally> each) throws IOException {
         Categories dictionary = new Categories();
         List<Cursor> cursors = new ArrayList<>();
         try {
@@ -210,7 +216,7 @@ public final class BoundedTally implements AutoCloseable {
                     heads.add(c);
                 }
             }
-            try (ReviewerTableFile.Rows rows = new ReviewerTableFile.Rows(Files.newOutputStream(file), dictionary.all())) {
+            try (ReviewerTableFile.Rows rows = new ReviewerTableFile.Rows(Files.newOutputStream(file), dictionary.all(), each)) {
                 while (!heads.isEmpty()) {
                     Cursor c = heads.poll();
                     rows.write(c.current);

@@ -38,7 +38,12 @@ public final class ReviewerTableFile {
     }
 
     public static void write(TallyTable table, Path file) throws IOException {
-        try (Rows rows = new Rows(Files.newOutputStream(file), table.categories())) {
+        write(table, file, Rows.NONE);
+    }
+
+    /** As {@link #write(TallyTable, Path)}, handing each tally written, in id order, to {@code each} as well. */
+    static void write(TallyTable table, Path file, java.util.function.Consumer<ReviewerTally> each) throws IOException {
+        try (Rows rows = new Rows(Files.newOutputStream(file), table.categories(), each)) {
             TallyRecord r = new TallyRecord();
             for (int s : table.sortedById()) {
                 table.load(s, r, null);
@@ -53,7 +58,11 @@ public final class ReviewerTableFile {
      */
     static final class Rows implements AutoCloseable {
         private static final int FLUSH_AT = 1 << 16;
+        /** No one to tell. */
+        static final java.util.function.Consumer<ReviewerTally> NONE = t -> { };
         private final OutputStream out;
+        private final java.util.function.Consumer<ReviewerTally> each;
+        private final List<String> nameList;
         private final String[] names;
         /** Per category id: the rank of its name in String order (equal names, equal rank). */
         private final int[] rank;
@@ -67,7 +76,14 @@ public final class ReviewerTableFile {
         private long[] pairs = new long[8];
 
         Rows(OutputStream out, List<String> categoryNames) throws IOException {
+            this(out, categoryNames, NONE);
+        }
+
+        /** With {@code each} told every tally written, as a value (costs an object per row; {@link #NONE} to skip). */
+        Rows(OutputStream out, List<String> categoryNames, java.util.function.Consumer<ReviewerTally> each) throws IOException {
             this.out = out;
+            this.each = each;
+            nameList = List.copyOf(categoryNames);
             names = categoryNames.toArray(new String[0]);
             String[] sorted = names.clone();
             java.util.Arrays.sort(sorted);
@@ -137,6 +153,9 @@ public final class ReviewerTableFile {
             categories(r);
             put((byte) '\n');
             count++;
+            if (each != NONE) {
+                each.accept(r.toTally(nameList));
+            }
             if (len >= FLUSH_AT) {
                 out.write(buf, 0, len);
                 len = 0;

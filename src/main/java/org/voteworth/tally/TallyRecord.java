@@ -61,6 +61,16 @@ final class TallyRecord {
         return new String(id, 0, idLength, StandardCharsets.UTF_8);
     }
 
+    /** This tally as a value; category ids are indexes into {@code names}. */
+    ReviewerTally toTally(java.util.List<String> names) {
+        java.util.TreeMap<String, Long> cats = new java.util.TreeMap<>();
+        for (int j = 0; j < categories; j++) {
+            cats.merge(names.get(categoryIds[j]), (long) categoryCounts[j], Long::sum);
+        }
+        return new ReviewerTally(idString(), reviews, helpful, total, voted, majority, maxVotes, sumSquares, verified,
+                incentivised, new StarCounts(stars[0], stars[1], stars[2], stars[3], stars[4]), cats, firstDay, lastDay);
+    }
+
     void addCategory(int category, int count) {
         if (categories == categoryIds.length) {
             categoryIds = Arrays.copyOf(categoryIds, 2 * categories);

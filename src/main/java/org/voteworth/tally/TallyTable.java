@@ -3,7 +3,6 @@ package org.voteworth.tally;
 import java.io.IOException;
 import java.util.Arrays;
 import java.util.List;
-import java.util.TreeMap;
 import org.voteworth.source.ReviewRow;
 import org.voteworth.source.ReviewSink;
 
@@ -306,14 +305,7 @@ public final class TallyTable implements ReviewSink {
         check(slot);
         TallyRecord r = new TallyRecord();
         load(slot, r, null);
-        TreeMap<String, Long> cats = new TreeMap<>();
-        for (int j = 0; j < r.categories; j++) {
-            cats.merge(categories.name(r.categoryIds[j]), (long) r.categoryCounts[j], Long::sum);
-        }
-        int[] st = r.stars;
-        return new ReviewerTally(index.id(slot), r.reviews, r.helpful, r.total, r.voted, r.majority, r.maxVotes,
-                r.sumSquares, r.verified, r.incentivised, new StarCounts(st[0], st[1], st[2], st[3], st[4]), cats,
-                r.firstDay, r.lastDay);
+        return r.toTally(categories.all());
     }
 
     /** Every category name seen, in order of first appearance. */

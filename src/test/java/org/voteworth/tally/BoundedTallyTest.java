@@ -58,6 +58,24 @@ class BoundedTallyTest {
     }
 
     @Test
+    void eachTallyWrittenIsHandedOnInIdOrderWithOrWithoutSpilling() throws IOException {
+        new DemoDumpGenerator().generate(dir.resolve("dump"), DemoOptions.rows(5_000).withGzip(false).withCategories(3));
+        List<DumpFile> files = DumpFinder.find(List.of(dir.resolve("dump").toString()), CategoryFromName.defaults());
+        TallyTable reference = new TallyTable();
+        new org.voteworth.source.DumpReader(SourceOptions.defaults()).read(files, reference, new RejectCounter());
+        for (long budget : new long[] {Long.MAX_VALUE, 50_000}) {
+            List<ReviewerTally> seen = new java.util.ArrayList<>();
+            try (BoundedTally tally = new BoundedTally(TallyUnit.REVIEWER, budget, dir)) {
+                new ParallelDumpReader(SourceOptions.defaults(), 2).read(files, w -> tally.newSink(), new RejectCounter(),
+                        ProgressListener.NONE);
+                tally.write(dir.resolve("got.csv"), seen::add);
+                assertThat(tally.spilled()).isEqualTo(budget != Long.MAX_VALUE);
+            }
+            assertThat(seen).as("budget %d", budget).isEqualTo(reference.toSortedList());
+        }
+    }
+
+    @Test
     void nonNumericIdsSurviveASpill() throws IOException {
         Random rnd = new Random(3);
         TallyTable reference = new TallyTable();
