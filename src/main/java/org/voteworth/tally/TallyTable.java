@@ -22,7 +22,7 @@ import org.voteworth.source.ReviewSink;
  * <p>Not thread-safe: one table per thread, merged at the end.
  */
 public final class TallyTable implements ReviewSink {
-    // Ints per slot, at INTS * slot + field.
+    // Ints per slot, at INTS * slot + field; REVIEWS up to the last star are counters that add up in a merge.
     private static final int INTS = 16;
     private static final int REVIEWS = 0;
     private static final int VOTED = 1;
@@ -164,12 +164,29 @@ public final class TallyTable implements ReviewSink {
         for (int c = 0; c < catMap.length; c++) {
             catMap[c] = categories.idOf(other.categories.name(c));
         }
-        TallyRecord r = new TallyRecord();
+        // Slot by slot on the arrays: this is the in-memory merge of every worker's table.
         for (int o = 0; o < other.size(); o++) {
-            other.load(o, r, catMap);
             int s = index.slotOf(other.index, o);
             ready(s);
-            add(s, r);
+            int b = INTS * s;
+            int ob = INTS * o;
+            for (int k = REVIEWS; k < STARS + 5; k++) {
+                ints[b + k] += other.ints[ob + k];
+            }
+            ints[b + FIRST] = ReviewerTally.minDay(ints[b + FIRST], other.ints[ob + FIRST]);
+            ints[b + LAST] = ReviewerTally.maxDay(ints[b + LAST], other.ints[ob + LAST]);
+            int c = LONGS * s;
+            int oc = LONGS * o;
+            longs[c + HELPFUL] += other.longs[oc + HELPFUL];
+            longs[c + TOTAL] += other.longs[oc + TOTAL];
+            longs[c + MAX] = Math.max(longs[c + MAX], other.longs[oc + MAX]);
+            longs[c + SQUARES] += other.longs[oc + SQUARES];
+            if (other.ints[ob + CATEGORY] >= 0) {
+                addCategory(s, catMap[other.ints[ob + CATEGORY]], other.ints[ob + CATEGORY_COUNT]);
+            }
+            for (int e = other.ints[ob + MORE]; e >= 0; e = other.pool[e + 2]) {
+                addCategory(s, catMap[other.pool[e]], other.pool[e + 1]);
+            }
         }
     }
 
