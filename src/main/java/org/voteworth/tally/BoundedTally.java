@@ -209,8 +209,8 @@ public final class BoundedTally implements AutoCloseable {
             for (Path r : runs) {
                 cursors.add(new Cursor(r, dictionary));
             }
-            PriorityQueue<Cursor> heads = new PriorityQueue<>((x, y) -> IdOrder.compare(x.current.id, x.current.idLength,
-                    y.current.id, y.current.idLength));
+            PriorityQueue<Cursor> heads = new PriorityQueue<>((x, y) -> IdOrder.compare(x.current.idBytes(),
+                    x.current.idLength(), y.current.idBytes(), y.current.idLength()));
             for (Cursor c : cursors) {
                 if (c.advance()) {
                     heads.add(c);

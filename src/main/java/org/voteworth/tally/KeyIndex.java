@@ -100,11 +100,7 @@ final class KeyIndex {
     int idLength(int slot) {
         long r = refs[slot];
         if (r >= 0) {
-            int n = 1;
-            for (long v = r; v >= 10; v /= 10) {
-                n++;
-            }
-            return n;
+            return decimalLength(r);
         }
         return readInt(arena, (int) (-r - 1));
     }
@@ -138,14 +134,37 @@ final class KeyIndex {
 
     /** Writes the decimal digits of {@code v >= 0} at {@code into[at...]}; returns how many. */
     static int digits(long v, byte[] into, int at) {
-        int n = 1;
-        for (long x = v; x >= 10; x /= 10) {
-            n++;
-        }
+        int n = decimalLength(v);
         long x = v;
-        for (int i = at + n - 1; i >= at; i--) {
-            into[i] = (byte) ('0' + x % 10);
+        int i = at + n;
+        while (x >= 100) {
+            int pair = (int) (x % 100);
+            x /= 100;
+            into[--i] = (byte) ('0' + pair % 10);
+            into[--i] = (byte) ('0' + pair / 10);
+        }
+        if (x >= 10) {
+            into[--i] = (byte) ('0' + x % 10);
             x /= 10;
+        }
+        into[--i] = (byte) ('0' + x);
+        return n;
+    }
+
+    private static final long[] POWERS = new long[19];
+
+    static {
+        POWERS[0] = 1;
+        for (int i = 1; i < POWERS.length; i++) {
+            POWERS[i] = POWERS[i - 1] * 10;
+        }
+    }
+
+    /** Digits in the decimal form of {@code v >= 0}. */
+    static int decimalLength(long v) {
+        int n = 1;
+        while (n < POWERS.length && v >= POWERS[n]) {
+            n++;
         }
         return n;
     }

@@ -163,20 +163,22 @@ public final class ReviewerTableFile {
         }
 
         private void id(TallyRecord r) {
+            byte[] id = r.idBytes();
+            int n = r.idLength();
             boolean raw = r.numeric;
-            if (!raw && r.idLength > 0) {
-                byte first = r.id[0];
+            if (!raw && n > 0) {
+                byte first = id[0];
                 raw = first != '=' && first != '+' && first != '-' && first != '@' && first != '\t' && first != '\r'
                         && first != '\'';
-                for (int i = 0; i < r.idLength && raw; i++) {
-                    byte c = r.id[i];
+                for (int i = 0; i < n && raw; i++) {
+                    byte c = id[i];
                     raw = c >= 0 && c != ',' && c != '"' && c != '\n' && c != '\r';
                 }
             }
             if (raw) {
-                room(r.idLength);
-                System.arraycopy(r.id, 0, buf, len, r.idLength);
-                len += r.idLength;
+                room(n);
+                System.arraycopy(id, 0, buf, len, n);
+                len += n;
             } else {
                 utf8(Csv.text(r.idString()));
             }

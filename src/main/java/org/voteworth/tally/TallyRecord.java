@@ -16,11 +16,12 @@ final class TallyRecord {
     static final int BYTES_ID = 1;
     static final int END = 2;
 
-    byte[] id = new byte[64];
-    int idLength;
-    /** Whether the id is a canonical number, held in {@link #number} (and as digits in {@link #id}). */
+    private byte[] id = new byte[64];
+    private int idLength;
+    /** Whether the id is a canonical number, held in {@link #number}; its digits are made when asked for. */
     boolean numeric;
     long number;
+    private boolean digitsMade;
 
     int reviews;
     int voted;
@@ -42,23 +43,39 @@ final class TallyRecord {
     void numericId(long n) {
         numeric = true;
         number = n;
-        if (id.length < 20) {
-            id = new byte[64];
-        }
-        idLength = KeyIndex.digits(n, id, 0);
+        digitsMade = false;
     }
 
-    void bytesId(byte[] b, int off, int len) {
-        numeric = false;
+    /** Room for a byte id of {@code len} bytes, to be filled and then confirmed with {@link #bytesId(int)}. */
+    byte[] idRoom(int len) {
         if (id.length < len) {
             id = new byte[Math.max(len, 2 * id.length)];
         }
-        System.arraycopy(b, off, id, 0, len);
+        return id;
+    }
+
+    /** The id is the first {@code len} bytes of {@link #idRoom}. */
+    void bytesId(int len) {
+        numeric = false;
         idLength = len;
     }
 
+    /** The id as UTF-8 bytes, the first {@link #idLength()} of them. */
+    byte[] idBytes() {
+        if (numeric && !digitsMade) {
+            idLength = KeyIndex.digits(number, id, 0);
+            digitsMade = true;
+        }
+        return id;
+    }
+
+    int idLength() {
+        idBytes();
+        return idLength;
+    }
+
     String idString() {
-        return new String(id, 0, idLength, StandardCharsets.UTF_8);
+        return new String(idBytes(), 0, idLength, StandardCharsets.UTF_8);
     }
 
     /** This tally as a value; category ids are indexes into {@code names}. */
@@ -123,8 +140,7 @@ final class TallyRecord {
             numericId(in.number());
         } else {
             id = in.bytes(id, length);
-            idLength = length[0];
-            numeric = false;
+            bytesId(length[0]);
         }
         reviews = (int) in.number();
         helpful = in.number();

@@ -244,11 +244,7 @@ public final class TallyTable implements ReviewSink {
         if (index.isNumeric(slot)) {
             r.numericId(index.number(slot));
         } else {
-            if (r.id.length < index.idLength(slot)) {
-                r.id = new byte[Math.max(index.idLength(slot), 2 * r.id.length)];
-            }
-            r.idLength = index.idBytes(slot, r.id);
-            r.numeric = false;
+            r.bytesId(index.idBytes(slot, r.idRoom(index.idLength(slot))));
         }
         int b = INTS * slot;
         r.reviews = ints[b + REVIEWS];
@@ -394,7 +390,7 @@ public final class TallyTable implements ReviewSink {
         int[] catMap = readCategoryNames(in, categories);
         TallyRecord r = new TallyRecord();
         while (r.read(in, catMap)) {
-            int s = r.numeric ? index.slotOfNumber(r.number) : index.slotOf(r.id, 0, r.idLength);
+            int s = r.numeric ? index.slotOfNumber(r.number) : index.slotOf(r.idBytes(), 0, r.idLength());
             ready(s);
             add(s, r);
         }

@@ -68,6 +68,24 @@ class IdOrderTest {
     }
 
     @Test
+    void digitsOfNumbersAgreeWithLongToString() {
+        byte[] b = new byte[24];
+        Random rnd = new Random(2);
+        List<Long> values = new ArrayList<>(List.of(0L, 9L, 10L, 99L, 100L, 101L, Long.MAX_VALUE));
+        for (long p = 1; p > 0 && p <= Long.MAX_VALUE / 10; p *= 10) {
+            values.addAll(List.of(p - 1, p, p + 1, 10 * p - 1));
+        }
+        for (int i = 0; i < 10_000; i++) {
+            values.add(rnd.nextLong() >>> (1 + rnd.nextInt(63)));
+        }
+        for (long v : values) {
+            int n = KeyIndex.digits(v, b, 3);
+            assertThat(new String(b, 3, n, StandardCharsets.US_ASCII)).isEqualTo(Long.toString(v));
+            assertThat(KeyIndex.decimalLength(v)).isEqualTo(n);
+        }
+    }
+
+    @Test
     void pairwiseComparisonAgreesWithStrings() {
         List<String> ids = ids(new Random(4), 600, false);
         List<String> disagree = new ArrayList<>();
