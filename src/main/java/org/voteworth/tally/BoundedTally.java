@@ -26,6 +26,8 @@ import org.voteworth.source.ReviewSink;
 public final class BoundedTally implements AutoCloseable {
     /** Spill partitions: the merge holds about 1/PARTITIONS of the reviewers at a time. */
     static final int PARTITIONS = 32;
+    /** Heap per tally in a table being merged, with its id index and sort keys (rough, from {@link TallyTable#memoryBytes()}). */
+    private static final long BYTES_PER_TALLY = 200;
     private static final int CHECK_EVERY = 1 << 14;
 
     private final TallyUnit unit;
@@ -35,6 +37,7 @@ public final class BoundedTally implements AutoCloseable {
     private Path spillDir;
     private int spills;
     private long reviewers = -1;
+    private boolean liveMerged;
 
     /**
      * @param budgetBytes heap the tallies may take in all (rough, from {@link TallyTable#memoryBytes()})
@@ -71,6 +74,11 @@ public final class BoundedTally implements AutoCloseable {
         return reviewers;
     }
 
+    /** Whether the tables left in memory after the scan went straight into the partition merge (tests check both ways). */
+    boolean mergedLiveTables() {
+        return liveMerged;
+    }
+
     /** The spill folder, when one was made (tests check that it is gone after {@link #close()}). */
     Optional<Path> spillDir() {
         return Optional.ofNullable(spillDir);
@@ -97,10 +105,25 @@ public final class BoundedTally implements AutoCloseable {
         }
         // As many threads as scanned: each holds one partition (about 1/PARTITIONS of the reviewers) at a time.
         int threads = Math.max(1, workers.size());
-        inParallel(workers.size(), threads, w -> workers.get(w).spill());
+        // The tables still in memory join each partition directly, rather than going to disk first, when
+        // they and the partitions being merged fit the budget together.
+        long liveSlots = workers.stream().mapToLong(w -> w.table.size()).sum();
+        long partitionBytes = (spilledTallies() + liveSlots) / PARTITIONS * BYTES_PER_TALLY;
+        boolean keepLive = inMemory + threads * partitionBytes <= budget;
+        liveMerged = keepLive;
+        List<TallyTable> live = new ArrayList<>();
+        if (keepLive) {
+            workers.forEach(w -> live.add(w.table));
+        } else {
+            inParallel(workers.size(), threads, w -> workers.get(w).spill());
+        }
+        List<byte[]> livePartitions = new ArrayList<>();
+        for (TallyTable t : live) {
+            livePartitions.add(t.partitions(PARTITIONS));
+        }
         List<Path> runs = new ArrayList<>();
         for (int p = 0; p < PARTITIONS; p++) {
-            runs.add(spillDir.resolve("run-" + p + ".bin"));
+            runs.add(spillFolder().resolve("run-" + p + ".bin"));
         }
         inParallel(PARTITIONS, threads, p -> {
             TallyTable t = new TallyTable(unit);
@@ -109,6 +132,9 @@ public final class BoundedTally implements AutoCloseable {
                     t.readSpill(in);
                 }
                 Files.delete(f);
+            }
+            for (int k = 0; k < live.size(); k++) {
+                t.mergePartition(live.get(k), livePartitions.get(k), p);
             }
             try (SpillFile.Out out = SpillFile.create(runs.get(p))) {
                 t.writeRun(t.sortedById(), out);
@@ -245,6 +271,16 @@ public final class BoundedTally implements AutoCloseable {
         return spills++;
     }
 
+    private long spilledTallies;
+
+    private synchronized void spilledTallies(long n) {
+        spilledTallies += n;
+    }
+
+    private synchronized long spilledTallies() {
+        return spilledTallies;
+    }
+
     private synchronized long othersBytes(Worker self) {
         long sum = 0;
         for (Worker w : workers) {
@@ -310,6 +346,7 @@ public final class BoundedTally implements AutoCloseable {
                     parts[p] = SpillFile.create(dir.resolve(String.format(java.util.Locale.ROOT, "spill-w%03d-%06d-p%d.bin", number, n, p)));
                 }
                 table.spill(parts);
+                spilledTallies(table.size());
             } finally {
                 for (SpillFile.Out o : parts) {
                     if (o != null) {

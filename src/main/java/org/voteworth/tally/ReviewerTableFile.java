@@ -228,7 +228,12 @@ public final class ReviewerTableFile {
                 return;
             }
             room(20);
-            len += KeyIndex.digits(v, buf, len);
+            if (v < 10) {
+                // Most counts of most reviewers are one digit.
+                buf[len++] = (byte) ('0' + v);
+            } else {
+                len += KeyIndex.digits(v, buf, len);
+            }
         }
 
         /** {@code %.6f}; shares in [0, 1] take a fast path that gives the same digits (ties fall back to the formatter). */

@@ -157,6 +157,30 @@ public final class TallyTable implements ReviewSink {
 
     /** Adds every tally of {@code other} into this table (same meaning as {@link ReviewerTally#merge}). */
     public void mergeFrom(TallyTable other) {
+        mergeSlots(other, null, 0);
+    }
+
+    /**
+     * Adds the tallies of {@code other} whose spill partition ({@link #partitions}) is {@code p};
+     * {@code other} is only read, so several threads may take partitions of it at once.
+     */
+    void mergePartition(TallyTable other, byte[] partitionOf, int p) {
+        mergeSlots(other, partitionOf, p);
+    }
+
+    /** The spill partition of every slot, as {@link #spill} would choose it among {@code parts} streams. */
+    byte[] partitions(int parts) {
+        if (parts > 256) {
+            throw new IllegalArgumentException("at most 256 partitions, not " + parts);
+        }
+        byte[] of = new byte[size()];
+        for (int s = 0; s < of.length; s++) {
+            of[s] = (byte) index.partition(s, parts);
+        }
+        return of;
+    }
+
+    private void mergeSlots(TallyTable other, byte[] partitionOf, int p) {
         if (other.unit != unit) {
             throw new IllegalArgumentException("cannot merge a " + other.unit + " tally into a " + unit + " tally");
         }
@@ -166,6 +190,9 @@ public final class TallyTable implements ReviewSink {
         }
         // Slot by slot on the arrays: this is the in-memory merge of every worker's table.
         for (int o = 0; o < other.size(); o++) {
+            if (partitionOf != null && partitionOf[o] != (byte) p) {
+                continue;
+            }
             int s = index.slotOf(other.index, o);
             ready(s);
             int b = INTS * s;

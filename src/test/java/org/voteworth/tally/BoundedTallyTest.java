@@ -37,8 +37,9 @@ class BoundedTallyTest {
         Path expected = dir.resolve("expected.csv");
         ReviewerTableFile.write(reference, expected);
 
+        boolean[] liveMergedSeen = new boolean[2];
         for (int threads : new int[] {1, 2, 3, 7}) {
-            for (long budget : new long[] {Long.MAX_VALUE, 200_000}) {
+            for (long budget : new long[] {Long.MAX_VALUE, 200_000, 1_500_000}) {
                 Path tmp = Files.createDirectories(dir.resolve("tmp-" + threads + "-" + budget));
                 Path got = dir.resolve("got-" + threads + "-" + budget + ".csv");
                 BoundedTally tally = new BoundedTally(TallyUnit.REVIEWER, budget, tmp);
@@ -48,6 +49,9 @@ class BoundedTallyTest {
                     tally.write(got);
                     assertThat(tally.spilled()).as("budget %d", budget).isEqualTo(budget != Long.MAX_VALUE);
                     assertThat(tally.reviewers()).isEqualTo(reference.size());
+                    if (tally.spilled()) {
+                        liveMergedSeen[tally.mergedLiveTables() ? 1 : 0] = true;
+                    }
                 }
                 assertThat(Files.mismatch(expected, got)).as("threads %d budget %d", threads, budget).isEqualTo(-1L);
                 try (var s = Files.list(tmp)) {
@@ -55,6 +59,7 @@ class BoundedTallyTest {
                 }
             }
         }
+        assertThat(liveMergedSeen).as("spilled runs whose last tables went to disk, and ones merged in memory").containsOnly(true);
     }
 
     @Test
