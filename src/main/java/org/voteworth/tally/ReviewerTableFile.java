@@ -115,35 +115,25 @@ public final class ReviewerTableFile {
 
         void write(TallyRecord r) throws IOException {
             id(r);
-            put((byte) ',');
-            number(r.reviews);
-            put((byte) ',');
-            number(r.helpful);
-            put((byte) ',');
-            number(r.total);
+            cell(r.reviews);
+            cell(r.helpful);
+            cell(r.total);
             put((byte) ',');
             if (r.total != 0) {
                 decimal((double) r.helpful / r.total);
             }
-            put((byte) ',');
-            number(r.voted);
-            put((byte) ',');
-            number(r.majority);
-            put((byte) ',');
-            number(r.maxVotes);
+            cell(r.voted);
+            cell(r.majority);
+            cell(r.maxVotes);
             put((byte) ',');
             decimal(r.total == 0 ? 0 : (double) r.maxVotes / r.total);
-            put((byte) ',');
-            number(r.sumSquares);
+            cell(r.sumSquares);
             put((byte) ',');
             decimal(r.total == 0 ? 0 : r.sumSquares / ((double) r.total * r.total));
-            put((byte) ',');
-            number(r.verified);
-            put((byte) ',');
-            number(r.incentivised);
+            cell(r.verified);
+            cell(r.incentivised);
             for (int k = 0; k < 5; k++) {
-                put((byte) ',');
-                number(r.stars[k]);
+                cell(r.stars[k]);
             }
             put((byte) ',');
             date(r.firstDay);
@@ -220,6 +210,12 @@ public final class ReviewerTableFile {
             StringJoiner cats = new StringJoiner(";");
             byName.forEach((c, k) -> cats.add(cellName(c) + ":" + k));
             utf8(Csv.text(cats.toString()));
+        }
+
+        /** A comma, then the number. */
+        private void cell(long v) {
+            put((byte) ',');
+            number(v);
         }
 
         private void number(long v) {
