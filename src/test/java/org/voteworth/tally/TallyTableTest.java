@@ -112,6 +112,44 @@ class TallyTableTest {
     }
 
     @Test
+    void rowsFromTheScannerGiveTheSameSlotsInOrderOfFirstAppearanceAsAddingThemOneByOne() {
+        // Rows are batched internally; every reading method must see them all, in their order.
+        List<Review> all = randomReviews(new Random(21), 3000);
+        TallyTable added = tableOf(all);
+        TallyTable accepted = new TallyTable();
+        org.voteworth.source.ReviewRow row = new org.voteworth.source.ReviewRow();
+        List<String> firstSeen = new ArrayList<>();
+        for (Review r : all) {
+            byte[] b = (r.id() + "|" + r.category()).getBytes(java.nio.charset.StandardCharsets.UTF_8);
+            row.buf = b;
+            row.reviewerOff = 0;
+            row.reviewerLen = r.id().length();
+            row.categoryBuf = b;
+            row.categoryOff = r.id().length() + 1;
+            row.categoryLen = b.length - row.categoryOff;
+            row.helpful = r.helpful();
+            row.total = r.total();
+            row.stars = r.stars();
+            row.verified = r.verified() ? 1 : 0;
+            row.incentivised = r.incentivised() ? 1 : 0;
+            row.epochDay = r.day();
+            accepted.accept(row);
+            if (!firstSeen.contains(r.id())) {
+                firstSeen.add(r.id());
+            }
+            if (firstSeen.size() == 7) {
+                // A read in the middle of the stream sees every row so far.
+                assertThat(accepted.size()).isEqualTo(7);
+            }
+        }
+        assertThat(accepted.size()).isEqualTo(firstSeen.size());
+        for (int s = 0; s < accepted.size(); s++) {
+            assertThat(accepted.id(s)).isEqualTo(firstSeen.get(s));
+            assertThat(accepted.get(s)).isEqualTo(added.get(added.find(firstSeen.get(s))));
+        }
+    }
+
+    @Test
     void addingWholeTalliesRoundTrips() {
         List<Review> all = randomReviews(new Random(5), 200);
         TallyTable original = tableOf(all);
