@@ -242,7 +242,7 @@ public final class BoundedTally implements AutoCloseable {
                     heads.add(c);
                 }
             }
-            try (ReviewerTableFile.Rows rows = new ReviewerTableFile.Rows(Files.newOutputStream(file), dictionary.all(), each)) {
+            try (ReviewerTableFile.Rows rows = new ReviewerTableFile.Rows(Files.newOutputStream(file), dictionary, each)) {
                 while (!heads.isEmpty()) {
                     Cursor c = heads.poll();
                     rows.write(c.current);

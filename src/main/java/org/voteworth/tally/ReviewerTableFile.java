@@ -43,12 +43,25 @@ public final class ReviewerTableFile {
 
     /** As {@link #write(TallyTable, Path)}, handing each tally written, in id order, to {@code each} as well. */
     static void write(TallyTable table, Path file, java.util.function.Consumer<ReviewerTally> each) throws IOException {
-        try (Rows rows = new Rows(Files.newOutputStream(file), table.categories(), each)) {
+        try (Rows rows = new Rows(Files.newOutputStream(file), table.categoryDictionary(), each)) {
             TallyRecord r = new TallyRecord();
             for (int s : table.sortedById()) {
                 table.load(s, r, null);
                 rows.write(r);
             }
+        }
+    }
+
+    /** Writes tallies already ordered by id (streamed from sorted partitions); returns how many. */
+    public static long write(java.util.Iterator<ReviewerTally> sorted, Path file) throws IOException {
+        Categories dictionary = new Categories();
+        try (Rows rows = new Rows(Files.newOutputStream(file), dictionary, Rows.NONE)) {
+            TallyRecord r = new TallyRecord();
+            while (sorted.hasNext()) {
+                r.set(sorted.next(), dictionary);
+                rows.write(r);
+            }
+            return rows.count();
         }
     }
 
@@ -62,46 +75,40 @@ public final class ReviewerTableFile {
         static final java.util.function.Consumer<ReviewerTally> NONE = t -> { };
         private final OutputStream out;
         private final java.util.function.Consumer<ReviewerTally> each;
-        private final List<String> nameList;
-        private final String[] names;
-        /** Per category id: the rank of its name in String order (equal names, equal rank). */
-        private final int[] rank;
-        /** Per category id: the name with ';' and ':' made '_', as UTF-8. */
-        private final byte[][] cell;
-        /** Per category id: whether the name can go into the cell without quoting or neutralising. */
-        private final boolean[] plain;
+        /** Category names by id; may grow while rows are written. */
+        private final Categories names;
+        /** Per category id seen so far: the name with ';' and ':' made '_', as UTF-8. */
+        private byte[][] cell = new byte[0][];
+        /** Per category id seen so far: whether the name can go into the cell without quoting or neutralising. */
+        private boolean[] plain = new boolean[0];
         private byte[] buf = new byte[FLUSH_AT + 4096];
         private int len;
         private long count;
-        private long[] pairs = new long[8];
-
-        Rows(OutputStream out, List<String> categoryNames) throws IOException {
-            this(out, categoryNames, NONE);
-        }
+        private int[] order = new int[8];
 
         /** With {@code each} told every tally written, as a value (costs an object per row; {@link #NONE} to skip). */
-        Rows(OutputStream out, List<String> categoryNames, java.util.function.Consumer<ReviewerTally> each) throws IOException {
+        Rows(OutputStream out, Categories categoryNames, java.util.function.Consumer<ReviewerTally> each) throws IOException {
             this.out = out;
             this.each = each;
-            nameList = List.copyOf(categoryNames);
-            names = categoryNames.toArray(new String[0]);
-            String[] sorted = names.clone();
-            java.util.Arrays.sort(sorted);
-            rank = new int[names.length];
-            cell = new byte[names.length][];
-            plain = new boolean[names.length];
-            for (int c = 0; c < names.length; c++) {
-                rank[c] = java.util.Arrays.binarySearch(sorted, names[c]);
-                while (rank[c] > 0 && sorted[rank[c] - 1].equals(names[c])) {
-                    rank[c]--;
-                }
-                String v = cellName(names[c]);
+            names = categoryNames;
+            ascii(String.join(",", HEADER));
+            put((byte) '\n');
+        }
+
+        /** Makes the cell text of every category id below {@code n} ready. */
+        private void known(int n) {
+            if (n <= cell.length) {
+                return;
+            }
+            int from = cell.length;
+            cell = java.util.Arrays.copyOf(cell, Math.max(n, names.size()));
+            plain = java.util.Arrays.copyOf(plain, cell.length);
+            for (int c = from; c < cell.length; c++) {
+                String v = cellName(names.name(c));
                 cell[c] = v.getBytes(StandardCharsets.UTF_8);
                 // The pair as the first of a cell: no quoting needed and nothing to neutralise.
                 plain[c] = Csv.text(v + ":1").equals(v + ":1");
             }
-            ascii(String.join(",", HEADER));
-            put((byte) '\n');
         }
 
         private static String cellName(String category) {
@@ -144,7 +151,7 @@ public final class ReviewerTableFile {
             put((byte) '\n');
             count++;
             if (each != NONE) {
-                each.accept(r.toTally(nameList));
+                each.accept(r.toTally(names));
             }
             if (len >= FLUSH_AT) {
                 out.write(buf, 0, len);
@@ -177,20 +184,28 @@ public final class ReviewerTableFile {
         /** The categories as name:count pairs in name order, joined by ';', as one text cell. */
         private void categories(TallyRecord r) {
             int n = r.categories;
-            if (pairs.length < n) {
-                pairs = new long[2 * n];
+            if (order.length < n) {
+                order = new int[2 * n];
             }
+            // A reviewer has a few categories: insertion sort by name.
             for (int j = 0; j < n; j++) {
-                pairs[j] = (long) rank[r.categoryIds[j]] << 32 | j;
+                known(r.categoryIds[j] + 1);
+                String name = names.name(r.categoryIds[j]);
+                int k = j - 1;
+                while (k >= 0 && names.name(r.categoryIds[order[k]]).compareTo(name) > 0) {
+                    order[k + 1] = order[k];
+                    k--;
+                }
+                order[k + 1] = j;
             }
-            java.util.Arrays.sort(pairs, 0, n);
             boolean fast = true;
             for (int j = 0; j < n && fast; j++) {
-                fast = plain[r.categoryIds[(int) pairs[j]]] && (j == 0 || pairs[j] >>> 32 != pairs[j - 1] >>> 32);
+                fast = plain[r.categoryIds[order[j]]]
+                        && (j == 0 || !names.name(r.categoryIds[order[j]]).equals(names.name(r.categoryIds[order[j - 1]])));
             }
             if (fast) {
                 for (int j = 0; j < n; j++) {
-                    int at = (int) pairs[j];
+                    int at = order[j];
                     if (j > 0) {
                         put((byte) ';');
                     }
@@ -205,7 +220,7 @@ public final class ReviewerTableFile {
             }
             TreeMap<String, Long> byName = new TreeMap<>();
             for (int j = 0; j < n; j++) {
-                byName.merge(names[r.categoryIds[j]], (long) r.categoryCounts[j], Long::sum);
+                byName.merge(names.name(r.categoryIds[j]), (long) r.categoryCounts[j], Long::sum);
             }
             StringJoiner cats = new StringJoiner(";");
             byName.forEach((c, k) -> cats.add(cellName(c) + ":" + k));

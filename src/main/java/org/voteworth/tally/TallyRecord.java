@@ -78,14 +78,42 @@ final class TallyRecord {
         return new String(idBytes(), 0, idLength, StandardCharsets.UTF_8);
     }
 
-    /** This tally as a value; category ids are indexes into {@code names}. */
-    ReviewerTally toTally(java.util.List<String> names) {
+    /** This tally as a value; category ids are ids of {@code names}. */
+    ReviewerTally toTally(Categories names) {
         java.util.TreeMap<String, Long> cats = new java.util.TreeMap<>();
         for (int j = 0; j < categories; j++) {
-            cats.merge(names.get(categoryIds[j]), (long) categoryCounts[j], Long::sum);
+            cats.merge(names.name(categoryIds[j]), (long) categoryCounts[j], Long::sum);
         }
         return new ReviewerTally(idString(), reviews, helpful, total, voted, majority, maxVotes, sumSquares, verified,
                 incentivised, new StarCounts(stars[0], stars[1], stars[2], stars[3], stars[4]), cats, firstDay, lastDay);
+    }
+
+    /** Sets this record to the tally {@code t}, its categories as ids of {@code names} (added when new). */
+    void set(ReviewerTally t, Categories names) {
+        byte[] b = t.id().getBytes(StandardCharsets.UTF_8);
+        long n = KeyIndex.canonicalNumber(b, 0, b.length);
+        if (n >= 0) {
+            numericId(n);
+        } else {
+            System.arraycopy(b, 0, idRoom(b.length), 0, b.length);
+            bytesId(b.length);
+        }
+        reviews = Math.toIntExact(t.reviews());
+        helpful = t.helpfulVotes();
+        total = t.totalVotes();
+        voted = Math.toIntExact(t.votedReviews());
+        majority = Math.toIntExact(t.majorityReviews());
+        maxVotes = t.maxReviewVotes();
+        sumSquares = t.sumSquaredVotes();
+        verified = Math.toIntExact(t.verified());
+        incentivised = Math.toIntExact(t.incentivised());
+        for (int k = 1; k <= 5; k++) {
+            stars[k - 1] = Math.toIntExact(t.stars().of(k));
+        }
+        firstDay = t.firstDay();
+        lastDay = t.lastDay();
+        categories = 0;
+        t.reviewsByCategory().forEach((c, k) -> addCategory(names.idOf(c), Math.toIntExact(k)));
     }
 
     void addCategory(int category, int count) {

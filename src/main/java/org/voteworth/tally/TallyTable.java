@@ -276,22 +276,8 @@ public final class TallyTable implements ReviewSink {
     public void add(ReviewerTally t) {
         flush();
         TallyRecord r = new TallyRecord();
-        r.reviews = Math.toIntExact(t.reviews());
-        r.helpful = t.helpfulVotes();
-        r.total = t.totalVotes();
-        r.voted = Math.toIntExact(t.votedReviews());
-        r.majority = Math.toIntExact(t.majorityReviews());
-        r.maxVotes = t.maxReviewVotes();
-        r.sumSquares = t.sumSquaredVotes();
-        r.verified = Math.toIntExact(t.verified());
-        r.incentivised = Math.toIntExact(t.incentivised());
-        for (int k = 1; k <= 5; k++) {
-            r.stars[k - 1] = Math.toIntExact(t.stars().of(k));
-        }
-        r.firstDay = t.firstDay();
-        r.lastDay = t.lastDay();
-        t.reviewsByCategory().forEach((c, n) -> r.addCategory(categories.idOf(c), Math.toIntExact(n)));
-        int s = index.slotOf(t.id());
+        r.set(t, categories);
+        int s = r.numeric ? index.slotOfNumber(r.number) : index.slotOf(r.idBytes(), 0, r.idLength());
         ready(s);
         add(s, r);
     }
@@ -403,7 +389,12 @@ public final class TallyTable implements ReviewSink {
         check(slot);
         TallyRecord r = new TallyRecord();
         load(slot, r, null);
-        return r.toTally(categories.all());
+        return r.toTally(categories);
+    }
+
+    /** The dictionary behind this table's category ids. */
+    Categories categoryDictionary() {
+        return categories;
     }
 
     /** Every category name seen, in order of first appearance. */
@@ -493,7 +484,16 @@ public final class TallyTable implements ReviewSink {
 
     /** Every (slot, category, reviews) count, in no particular order, without an object per reviewer. */
     void forEachCategoryCount(CategoryCount each) {
-        byCategory.forEach((key, count) -> each.accept((int) (key >>> 20), categories.name((int) (key & 0xFFFFF)), count));
+        flush();
+        for (int s = 0; s < size(); s++) {
+            int b = INTS * s;
+            if (ints[b + CATEGORY] >= 0) {
+                each.accept(s, categories.name(ints[b + CATEGORY]), ints[b + CATEGORY_COUNT]);
+            }
+            for (int e = ints[b + MORE]; e >= 0; e = pool[e + 2]) {
+                each.accept(s, categories.name(pool[e]), pool[e + 1]);
+            }
+        }
     }
 
     /** Rough heap footprint, for the memory budget. */

@@ -130,7 +130,7 @@ class BoundedTallyTest {
         double[] values = new double[200_000];
         StringBuilder expected = new StringBuilder(String.join(",", ReviewerTableFile.HEADER)).append('\n');
         java.io.ByteArrayOutputStream bytes = new java.io.ByteArrayOutputStream();
-        try (ReviewerTableFile.Rows rows = new ReviewerTableFile.Rows(bytes, List.of())) {
+        try (ReviewerTableFile.Rows rows = new ReviewerTableFile.Rows(bytes, new Categories(), ReviewerTableFile.Rows.NONE)) {
             for (int i = 0; i < values.length; i++) {
                 long t = 1 + rnd.nextInt(5000);
                 values[i] = i % 2 == 0 ? (double) rnd.nextInt((int) t + 1) / t : rnd.nextDouble();

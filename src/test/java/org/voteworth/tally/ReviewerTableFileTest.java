@@ -67,6 +67,17 @@ class ReviewerTableFileTest {
         assertThat(Files.readAllLines(f)).containsExactlyElementsOf(expected);
     }
 
+    @Test
+    void talliesGivenInIdOrderAreWrittenAsTheTableIs() throws IOException {
+        TallyTable t = TallyTableTest.tableOf(TallyTableTest.randomReviews(new Random(12), 2000));
+        t.add("x", 1, 2, 3, true, false, "a,b", 18000);
+        Path fromTable = dir.resolve("table.csv");
+        Path fromTallies = dir.resolve("tallies.csv");
+        ReviewerTableFile.write(t, fromTable);
+        assertThat(ReviewerTableFile.write(t.toSortedList().iterator(), fromTallies)).isEqualTo(t.size());
+        assertThat(Files.mismatch(fromTable, fromTallies)).isEqualTo(-1L);
+    }
+
     private static ReviewerTally withCategory(ReviewerTally r, String cat) {
         return new ReviewerTally(r.id(), r.reviews(), r.helpfulVotes(), r.totalVotes(), r.votedReviews(),
                 r.majorityReviews(), r.maxReviewVotes(), r.sumSquaredVotes(), r.verified(), r.incentivised(),
