@@ -24,6 +24,7 @@ import org.voteworth.source.ScanSummary;
 import org.voteworth.source.SourceOptions;
 import org.voteworth.tally.BoundedTally;
 import org.voteworth.tally.ReviewerTableFile;
+import org.voteworth.tally.TallyTable;
 import org.voteworth.tally.TallyUnit;
 import org.voteworth.tally.VoteCap;
 
@@ -140,7 +141,10 @@ public final class Dump {
         return new Dump(inputs, source, threads, n, rejects, label);
     }
 
-    /** Where rejected rows go (default: a new file in the temporary folder, named by {@link ReviewerTable#rejectsFile()}). */
+    /**
+     * Where rejected rows go (default: a new file in the temporary folder, named by
+     * {@link ReviewerTable#rejectsFile()}, and removed again when no row was rejected).
+     */
     public Dump rejects(Path file) {
         return new Dump(inputs, source, threads, capVotes, Optional.of(file), label);
     }
@@ -172,13 +176,21 @@ public final class Dump {
         Path tmp = Path.of(System.getProperty("java.io.tmpdir"));
         Path rejectsFile = rejects.isPresent() ? rejects.get() : Files.createTempFile("voteworth-rejects-", ".tsv");
         UnaryOperator<ReviewSink> cap = capVotes == 0 ? UnaryOperator.identity() : sink -> new VoteCap(capVotes, sink);
+        TallyTable table;
+        ScanSummary summary;
         try (BoundedTally tally = new BoundedTally(TallyUnit.REVIEWER, Long.MAX_VALUE, tmp);
              RejectLog log = new RejectLog(rejectsFile)) {
-            ScanSummary summary = new ParallelDumpReader(source, threads).withTempDir(tmp)
+            summary = new ParallelDumpReader(source, threads).withTempDir(tmp)
                     .read(files, worker -> cap.apply(tally.newSink()), log, ProgressListener.NONE);
-            return new ReviewerTable(tally.mergedInMemory(), label, summary, Optional.of(rejectsFile),
-                    capVotes, UnaryOperator.identity());
+            table = tally.mergedInMemory();
         }
+        // A temporary rejects file with nothing in it is not evidence of anything: do not leave it behind.
+        boolean keep = rejects.isPresent() || summary.rejected() > 0;
+        if (!keep) {
+            Files.deleteIfExists(rejectsFile);
+        }
+        return new ReviewerTable(table, label, summary, keep ? Optional.of(rejectsFile) : Optional.empty(),
+                capVotes, UnaryOperator.identity());
     }
 
     private Dump withSource(SourceOptions s) {

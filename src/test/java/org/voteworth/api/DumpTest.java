@@ -73,4 +73,16 @@ class DumpTest {
         assertThatThrownBy(() -> Dump.open(new String[0])).hasMessageContaining("at least one input");
         assertThatThrownBy(() -> Dump.open(dir).threads(0)).hasMessageContaining("threads");
     }
+
+    @Test
+    void aDefaultRejectsFileIsKeptOnlyWhenItHoldsRejects() throws IOException {
+        Path clean = dir.resolve("clean-small");
+        new DemoDumpGenerator().generate(clean, DemoOptions.rows(3_000).withSeed(3).withGzip(false).withMalformedRows(false));
+        ReviewerTable none = Dump.open(clean).tally();
+        assertThat(none.summary().rejected()).isZero();
+        assertThat(none.rejectsFile()).isEmpty();
+        ReviewerTable some = Dump.demo(dir.resolve("demo")).tally();
+        assertThat(some.summary().rejected()).isPositive();
+        assertThat(some.rejectsFile()).hasValueSatisfying(f -> assertThat(f).isRegularFile());
+    }
 }
