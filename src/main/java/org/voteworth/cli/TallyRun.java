@@ -153,7 +153,11 @@ final class TallyRun {
             TallyTable table;
             if (tally.spilled()) {
                 Path merged = runDir.resolve("merged-" + (unit == TallyUnit.REVIEW ? "reviews" : "reviewers") + ".csv");
-                tally.write(merged, unit == TallyUnit.REVIEWER ? overview::addReviewer : t -> { });
+                if (unit == TallyUnit.REVIEWER) {
+                    tally.write(merged, overview);
+                } else {
+                    tally.write(merged);
+                }
                 table = readBack(merged, unit);
             } else {
                 table = tally.mergedInMemory();
@@ -227,7 +231,11 @@ final class TallyRun {
                 err.printf(Locale.ROOT, "tally: merging %d spilled partial tallies partition by partition ...%n", tally.spills());
                 err.flush();
             }
-            tally.write(table, unit == TallyUnit.REVIEWER ? overview::addReviewer : t -> { });
+            if (unit == TallyUnit.REVIEWER) {
+                tally.write(table, overview);
+            } else {
+                tally.write(table);
+            }
             double seconds = (System.nanoTime() - start) / 1e9;
             long bytes = files.stream().mapToLong(DumpFile::sizeBytes).sum();
             Written w = new Written(tally.reviewers(), unit, summary, rejectsFile, seconds, bytes, tally.spills(), overview);

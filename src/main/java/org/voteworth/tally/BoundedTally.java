@@ -89,12 +89,24 @@ public final class BoundedTally implements AutoCloseable {
      * Without spilling, the workers' tables are merged in memory when that fits the budget.
      */
     public void write(Path file) throws IOException {
-        write(file, ReviewerTableFile.Rows.NONE);
+        write(file, WrittenTally.NONE);
     }
 
     /** As {@link #write(Path)}, handing each tally written, in id order, to {@code each} as well (an object per reviewer). */
     public void write(Path file, java.util.function.Consumer<ReviewerTally> each) throws IOException {
-        Objects.requireNonNull(each, "each");
+        write(file, WrittenTally.asValues(Objects.requireNonNull(each, "each")));
+    }
+
+    /**
+     * As {@link #write(Path)}, counting every reviewer written into {@code overview} (reviews per
+     * reviewer, overall and per category) straight from the writer's record, without an object per
+     * reviewer; the same counts as {@link OverviewCounts#addReviewer} for each.
+     */
+    public void write(Path file, OverviewCounts overview) throws IOException {
+        write(file, overview::addWritten);
+    }
+
+    private void write(Path file, WrittenTally each) throws IOException {
         long inMemory = workers.stream().mapToLong(w -> w.table.memoryBytes()).sum();
         // Merging and sorting in memory needs about twice the tables' footprint.
         if (!spilled() && 2 * inMemory <= budget) {
@@ -228,7 +240,7 @@ public final class BoundedTally implements AutoCloseable {
     }
 
     /** Merges runs sorted by id whose ids are disjoint (hash partitions) into the reviewer table; returns the rows written. */
-    private static long mergeRuns(List<Path> runs, Path file, java.util.function.Consumer<ReviewerTally> each) throws IOException {
+    private static long mergeRuns(List<Path> runs, Path file, WrittenTally each) throws IOException {
         Categories dictionary = new Categories();
         List<Cursor> cursors = new ArrayList<>();
         try {

@@ -53,6 +53,25 @@ public final class OverviewCounts implements ReviewSink {
         t.reviewsByCategory().forEach((c, n) -> slice(c).addReviewer(n));
     }
 
+    /** As {@link #addReviewer} for the writer's record of one reviewer (category ids of {@code names}). */
+    void addWritten(TallyRecord r, Categories names) {
+        reviewsPerReviewer.add(r.reviews);
+        for (int j = 0; j < r.categories; j++) {
+            int id = r.categoryIds[j];
+            boolean seen = false;
+            long n = 0;
+            for (int k = 0; k < r.categories; k++) {
+                if (r.categoryIds[k] == id) {
+                    seen |= k < j;
+                    n += r.categoryCounts[k];
+                }
+            }
+            if (!seen) {
+                slice(names.name(id)).addReviewer(n);
+            }
+        }
+    }
+
     /**
      * Counts every reviewer of a final, merged reviewer table: the same as {@link #addReviewer}
      * for each, read from the table's arrays without an object per reviewer.

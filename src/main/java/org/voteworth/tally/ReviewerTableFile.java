@@ -38,11 +38,11 @@ public final class ReviewerTableFile {
     }
 
     public static void write(TallyTable table, Path file) throws IOException {
-        write(table, file, Rows.NONE);
+        write(table, file, WrittenTally.NONE);
     }
 
-    /** As {@link #write(TallyTable, Path)}, handing each tally written, in id order, to {@code each} as well. */
-    static void write(TallyTable table, Path file, java.util.function.Consumer<ReviewerTally> each) throws IOException {
+    /** As {@link #write(TallyTable, Path)}, telling {@code each} every tally written, in id order. */
+    static void write(TallyTable table, Path file, WrittenTally each) throws IOException {
         try (Rows rows = new Rows(Files.newOutputStream(file), table.categoryDictionary(), each)) {
             TallyRecord r = new TallyRecord();
             for (int s : table.sortedById()) {
@@ -55,7 +55,7 @@ public final class ReviewerTableFile {
     /** Writes tallies already ordered by id (streamed from sorted partitions); returns how many. */
     public static long write(java.util.Iterator<ReviewerTally> sorted, Path file) throws IOException {
         Categories dictionary = new Categories();
-        try (Rows rows = new Rows(Files.newOutputStream(file), dictionary, Rows.NONE)) {
+        try (Rows rows = new Rows(Files.newOutputStream(file), dictionary, WrittenTally.NONE)) {
             TallyRecord r = new TallyRecord();
             while (sorted.hasNext()) {
                 r.set(sorted.next(), dictionary);
@@ -71,10 +71,8 @@ public final class ReviewerTableFile {
      */
     static final class Rows implements AutoCloseable {
         private static final int FLUSH_AT = 1 << 16;
-        /** No one to tell. */
-        static final java.util.function.Consumer<ReviewerTally> NONE = t -> { };
         private final OutputStream out;
-        private final java.util.function.Consumer<ReviewerTally> each;
+        private final WrittenTally each;
         /** Category names by id; may grow while rows are written. */
         private final Categories names;
         /** Per category id seen so far: the name with ';' and ':' made '_', as UTF-8. */
@@ -86,8 +84,8 @@ public final class ReviewerTableFile {
         private long count;
         private int[] order = new int[8];
 
-        /** With {@code each} told every tally written, as a value (costs an object per row; {@link #NONE} to skip). */
-        Rows(OutputStream out, Categories categoryNames, java.util.function.Consumer<ReviewerTally> each) throws IOException {
+        /** With {@code each} told every tally written ({@link WrittenTally#NONE} to skip). */
+        Rows(OutputStream out, Categories categoryNames, WrittenTally each) throws IOException {
             this.out = out;
             this.each = each;
             names = categoryNames;
@@ -150,9 +148,7 @@ public final class ReviewerTableFile {
             categories(r);
             put((byte) '\n');
             count++;
-            if (each != NONE) {
-                each.accept(r.toTally(names));
-            }
+            each.written(r, names);
             if (len >= FLUSH_AT) {
                 out.write(buf, 0, len);
                 len = 0;

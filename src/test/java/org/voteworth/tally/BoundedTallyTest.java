@@ -77,6 +77,17 @@ class BoundedTallyTest {
                 assertThat(tally.spilled()).isEqualTo(budget != Long.MAX_VALUE);
             }
             assertThat(seen).as("budget %d", budget).isEqualTo(reference.toSortedList());
+            // Reviews per reviewer counted from the writer's records equal those counted from the values.
+            OverviewCounts fromValues = new OverviewCounts();
+            seen.forEach(fromValues::addReviewer);
+            OverviewCounts fromRecords = new OverviewCounts();
+            try (BoundedTally tally = new BoundedTally(TallyUnit.REVIEWER, budget, dir)) {
+                new ParallelDumpReader(SourceOptions.defaults(), 2).read(files, w -> tally.newSink(), new RejectCounter(),
+                        ProgressListener.NONE);
+                tally.write(dir.resolve("got.csv"), fromRecords);
+            }
+            assertThat(fromRecords).as("budget %d", budget).isEqualTo(fromValues);
+            assertThat(fromRecords.overall().reviewsPerReviewer().count()).isEqualTo(reference.size());
         }
     }
 
@@ -130,7 +141,7 @@ class BoundedTallyTest {
         double[] values = new double[200_000];
         StringBuilder expected = new StringBuilder(String.join(",", ReviewerTableFile.HEADER)).append('\n');
         java.io.ByteArrayOutputStream bytes = new java.io.ByteArrayOutputStream();
-        try (ReviewerTableFile.Rows rows = new ReviewerTableFile.Rows(bytes, new Categories(), ReviewerTableFile.Rows.NONE)) {
+        try (ReviewerTableFile.Rows rows = new ReviewerTableFile.Rows(bytes, new Categories(), WrittenTally.NONE)) {
             for (int i = 0; i < values.length; i++) {
                 long t = 1 + rnd.nextInt(5000);
                 values[i] = i % 2 == 0 ? (double) rnd.nextInt((int) t + 1) / t : rnd.nextDouble();
