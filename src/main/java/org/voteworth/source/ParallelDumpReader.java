@@ -209,7 +209,7 @@ public final class ParallelDumpReader {
                 throw new InterruptedIOException("interrupted while reading " + u.file);
             }
             if (d.error != null) {
-                throw rethrow(d.error);
+                throw rethrow(d.error instanceof CancellationException ? cause(done, d.error) : d.error);
             }
             if (u.first) {
                 counts = new ScanCounts();
@@ -262,6 +262,27 @@ public final class ParallelDumpReader {
             }
         }
         return new ScanSummary(reports);
+    }
+
+    /**
+     * A unit stopped because another one failed: waits for every unit to finish and returns the
+     * first real failure, so that the user reads what went wrong instead of "stopped".
+     */
+    private static Throwable cause(Done[] done, Throwable stopped) throws InterruptedIOException {
+        for (Done d : done) {
+            try {
+                d.latch.await();
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                throw new InterruptedIOException("interrupted while stopping the scan");
+            }
+        }
+        for (Done d : done) {
+            if (d.error != null && !(d.error instanceof CancellationException)) {
+                return d.error;
+            }
+        }
+        return stopped;
     }
 
     private static RuntimeException rethrow(Throwable t) throws IOException {

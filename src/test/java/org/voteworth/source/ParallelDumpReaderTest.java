@@ -201,4 +201,19 @@ class ParallelDumpReaderTest {
             assertThat(s.filter(f -> f.getFileName().toString().startsWith("voteworth-rejects"))).isEmpty();
         }
     }
+
+    @Test
+    void aFailureElsewhereIsReportedInsteadOfTheUnitsItStopped() throws IOException {
+        // The large file's worker is stopped when the other file fails; the error a user reads must
+        // name that failure, not the stop it caused.
+        List<DumpFile> files = new ArrayList<>(generated("plain"));
+        Path p = dir.resolve("broken.tsv.zst");
+        Files.write(p, new byte[] {0x28, (byte) 0xb5, 0x2f, (byte) 0xfd, 1, 2, 3});
+        files.add(SampleDump.dumpFile(p));
+        for (int threads : new int[] {2, 3}) {
+            assertThatThrownBy(() -> parallel(new ParallelDumpReader(SourceOptions.defaults(), threads).withTempDir(dir), files))
+                    .as("threads %d", threads).isInstanceOf(DumpFormatException.class)
+                    .hasMessageContaining("broken.tsv.zst");
+        }
+    }
 }
