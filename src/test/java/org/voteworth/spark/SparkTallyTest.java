@@ -136,7 +136,8 @@ class SparkTallyTest {
         List<List<String>> commands = List.of(
                 List.of("rank", "--rule", "bayes-mean", "--top", "25", "--quiet"),
                 List.of("rank", "--rule", "wilson", "--top", "40", "--quiet"),
-                List.of("sweep", "--bars", "0,5,10,50", "--quiet"));
+                List.of("sweep", "--bars", "0,5,10,50", "--quiet"),
+                List.of("compare", "--top", "20", "--quiet"));
         for (List<String> c : commands) {
             Run a = CliTest.run(withInput(c, localStore));
             Run b = CliTest.run(withInput(c, store));
@@ -145,6 +146,15 @@ class SparkTallyTest {
             assertThat(b.out().replace(store.toString(), "DIR")).as(String.join(" ", c))
                     .isEqualTo(a.out().replace(localStore.toString(), "DIR"));
         }
+    }
+
+    @Test
+    void theReportRunsOnTheSparkStore() throws IOException {
+        // The report needs the reviewer table only; its data set overview stays empty, as for a reviewer table file.
+        Path html = dir.resolve("spark-report.html");
+        Run r = CliTest.run("report", store.toString(), "--out", html.toString(), "--top", "3", "--draws", "200", "--quiet");
+        assertThat(r.code()).as(r.err()).isZero();
+        assertThat(Files.readString(html)).contains("planted-expert");
     }
 
     private static String[] withInput(List<String> command, Path input) {
