@@ -173,6 +173,10 @@ class SparkTallyTest {
             assertThat(r.err()).as(String.join(" ", c)).contains(store.toString()).contains("per-review parts are missing")
                     .contains("tally DUMP... --store");
         }
+        Run append = CliTest.run("tally", DEMO.resolve("books.tsv.gz").toString(), "--store", store.toString(), "--append",
+                "--quiet");
+        assertThat(append.code()).isNotZero();
+        assertThat(append.err()).contains(store.toString()).contains("no per-review parts");
     }
 
     @Test
