@@ -41,12 +41,15 @@ final class AnalysisInput {
     /**
      * As {@link #read}, with the data set overview filled for a store too (a dump's scan counts it on
      * the way; a store's reviews are read once more for it, so only the commands that show it ask).
+     * A store of the reviewer table only has no reviews to count: its overview stays empty, as for a
+     * reviewer table file.
      */
     static TallyRun.Result readWithOverview(DumpOptions o, ScoringOptions s, TallyUnit unit, Path rejectsFile, boolean quiet,
                                             PrintWriter err) throws IOException {
         TallyRun.Result t = read(o, s, unit, rejectsFile, quiet, err);
-        if (o.inputs.size() == 1 && Store.isStore(Path.of(o.inputs.get(0)))) {
-            TallyRun.Written w = StoreTally.overview(Path.of(o.inputs.get(0)));
+        Path in = o.inputs.size() == 1 ? Path.of(o.inputs.get(0)) : null;
+        if (in != null && Store.isStore(in) && Store.open(in).hasReviews()) {
+            TallyRun.Written w = StoreTally.overview(in);
             return new TallyRun.Result(t.table(), t.summary(), t.rejectsFile(), t.seconds() + w.seconds(), t.bytes(), w.overview());
         }
         return t;

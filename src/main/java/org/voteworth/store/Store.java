@@ -6,6 +6,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Comparator;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
@@ -14,6 +15,8 @@ import java.util.Optional;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.Future;
 import java.util.function.Consumer;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 import org.apache.parquet.ParquetReadOptions;
 import org.apache.parquet.conf.PlainParquetConfiguration;
 import org.apache.parquet.filter2.compat.FilterCompat;
@@ -30,15 +33,25 @@ import org.voteworth.tally.ReviewerTally;
 import org.voteworth.tally.TallyTable;
 
 /**
- * A store written by {@code voteworth tally --store DIR}, opened for reading: the reviewer table,
- * every review, or one reviewer's reviews. {@link #open} checks the manifest against the files'
- * footers, and every read names the file that is damaged instead of giving a wrong answer.
+ * A store written by {@code voteworth tally --store DIR} or {@code voteworth spark-tally}, opened
+ * for reading: the reviewer table, every review, or one reviewer's reviews. {@link #open} checks the
+ * manifest against the files' footers, and every read names the file that is damaged instead of
+ * giving a wrong answer.
+ *
+ * <p>{@code reviewers.parquet} is one file ({@code tally --store}) or a folder of part files
+ * ({@code spark-tally}: Spark's {@code part-NNNNN-*.parquet}, NNNNN the partition, beside
+ * {@code _SUCCESS} and {@code .crc} side files, which are skipped). Parts are read in partition
+ * order; the cluster job range-partitions by reviewer id, so that is id order. A store without
+ * per-review parts (manifest {@code reviewParts} 0) serves everything that needs only the reviewer
+ * table; asking it for reviews stops with an error saying so.
  */
 public final class Store {
     public static final String MANIFEST = "manifest.json";
     public static final String REVIEWERS = "reviewers.parquet";
     public static final String REVIEWS = "reviews";
     public static final String REJECTS = "rejects.tsv";
+    /** A Spark part file's name starts with its partition number. */
+    private static final Pattern PART = Pattern.compile("part-(\\d{1,18})");
 
     private final Path dir;
     private final StoreManifest manifest;
@@ -66,7 +79,10 @@ public final class Store {
         }
         StoreManifest manifest = StoreManifest.read(m);
         Store s = new Store(dir, manifest);
-        long reviewers = rows(s.reviewersFile());
+        long reviewers = 0;
+        for (Path f : s.reviewerFiles()) {
+            reviewers += rows(f);
+        }
         if (reviewers != manifest.reviewers()) {
             throw new IOException(s.reviewersFile() + ": holds " + reviewers + " reviewers, but " + m + " says "
                     + manifest.reviewers() + ": the store is inconsistent; rebuild it with 'voteworth tally --store'");
@@ -75,7 +91,8 @@ public final class Store {
         for (int p = 0; p < manifest.reviewParts(); p++) {
             reviews += rows(s.part(p));
         }
-        if (reviews != manifest.accepted()) {
+        // A store of the reviewer table only counts its reviews in the manifest and holds none of them.
+        if (manifest.reviewParts() > 0 && reviews != manifest.accepted()) {
             throw new IOException(s.dir.resolve(REVIEWS) + ": the parts hold " + reviews + " reviews, but " + m + " says "
                     + manifest.accepted() + " rows were accepted: the store is inconsistent; rebuild it with 'voteworth tally --store'");
         }
@@ -111,6 +128,52 @@ public final class Store {
         return dir.resolve(REVIEWERS);
     }
 
+    /**
+     * The files of the reviewer table: {@code reviewers.parquet} itself, or, when it is a folder, its
+     * Parquet part files in partition order (the number after {@code part-}, then the name).
+     */
+    List<Path> reviewerFiles() throws IOException {
+        Path t = reviewersFile();
+        if (!Files.isDirectory(t)) {
+            return List.of(t);
+        }
+        List<Path> parts;
+        try (java.util.stream.Stream<Path> s = Files.list(t)) {
+            parts = s.filter(p -> isPart(p.getFileName().toString()) && Files.isRegularFile(p))
+                    .sorted(Comparator.comparingLong(Store::partition).thenComparing(p -> p.getFileName().toString()))
+                    .toList();
+        }
+        if (parts.isEmpty()) {
+            throw new IOException(t + ": the folder holds no Parquet part files; rerun the job that wrote the store");
+        }
+        return parts;
+    }
+
+    private static boolean isPart(String name) {
+        return !name.startsWith("_") && !name.startsWith(".") && !name.endsWith(".crc");
+    }
+
+    /** The partition number of a part file named {@code part-NNNNN...}, or -1 (first) for another name. */
+    private static long partition(Path p) {
+        Matcher m = PART.matcher(p.getFileName().toString());
+        return m.lookingAt() ? Long.parseLong(m.group(1)) : -1;
+    }
+
+    /** Whether the store holds every review (per-review parts), as {@code tally --store} writes it. */
+    public boolean hasReviews() {
+        return manifest.reviewParts() > 0;
+    }
+
+    /** Stops a read of reviews from a store that holds the reviewer table only. */
+    private void requireReviews() throws IOException {
+        if (!hasReviews()) {
+            throw new IOException(dir + ": the per-review parts are missing (" + MANIFEST + " has reviewParts 0, as"
+                    + " 'voteworth spark-tally' writes it): this store holds the reviewer table only, which serves rank, sweep,"
+                    + " compare, audit and report; overview, profiles, --cap-votes and --unit review need each review:"
+                    + " build a store with 'voteworth tally DUMP... --store DIR' on the dump files");
+        }
+    }
+
     Path part(int p) {
         return partFile(dir.resolve(REVIEWS), p);
     }
@@ -140,7 +203,9 @@ public final class Store {
 
     /** Every reviewer's tally, in id order. */
     public void forEachReviewer(Consumer<ReviewerTally> each) throws IOException {
-        read(reviewersFile(), ReviewerColumns.reading(), FilterCompat.NOOP, each);
+        for (Path f : reviewerFiles()) {
+            read(f, ReviewerColumns.reading(), FilterCompat.NOOP, each);
+        }
     }
 
     /** The reviewer table, as {@code tally} built it. */
@@ -156,16 +221,19 @@ public final class Store {
     /** One reviewer's tally, read through the row group that can hold it. */
     public Optional<ReviewerTally> reviewer(String id) throws IOException {
         List<ReviewerTally> found = new ArrayList<>(1);
-        read(reviewersFile(), ReviewerColumns.reading(), byReviewer(id), t -> {
-            if (t.id().equals(id)) {
-                found.add(t);
-            }
-        });
+        for (Path f : reviewerFiles()) {
+            read(f, ReviewerColumns.reading(), byReviewer(id), t -> {
+                if (t.id().equals(id)) {
+                    found.add(t);
+                }
+            });
+        }
         return found.stream().findFirst();
     }
 
     /** One reviewer's reviews in store order (date, then input order), from the one part that holds them. */
     public List<StoredReview> reviewsOf(String id) throws IOException {
+        requireReviews();
         List<StoredReview> found = new ArrayList<>();
         read(part(ReviewerHash.part(id, manifest.reviewParts())), ReviewColumns.reading(Binary.fromString(id)),
                 byReviewer(id), r -> {
@@ -182,6 +250,7 @@ public final class Store {
 
     /** Every review, part by part (each part in reviewer order). */
     public void forEachReview(Consumer<StoredReview> each) throws IOException {
+        requireReviews();
         for (int p = 0; p < manifest.reviewParts(); p++) {
             read(part(p), ReviewColumns.reading(null), FilterCompat.NOOP, each);
         }
@@ -192,6 +261,7 @@ public final class Store {
      * tallies, vote caps and review units that read a dump read a store the same way.
      */
     public void scan(ReviewSink sink) throws IOException {
+        requireReviews();
         Map<String, DumpFile> files = new HashMap<>();
         for (StoreManifest.StoreFile f : manifest.files()) {
             files.put(f.path(), dumpFile(f));

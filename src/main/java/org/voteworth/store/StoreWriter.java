@@ -88,6 +88,10 @@ public final class StoreWriter implements AutoCloseable {
             throws IOException {
         Store s = Store.open(dir);
         StoreManifest m = s.manifest();
+        if (!s.hasReviews()) {
+            throw new IllegalArgumentException(dir + " holds the reviewer table only (no per-review parts, as 'voteworth"
+                    + " spark-tally' writes it), so files cannot be added to it: run the cluster job again over all the files");
+        }
         if (!m.mapping().equals(mapping) || !m.categoryFromName().equals(categoryFromName)) {
             throw new IllegalArgumentException("--append must read the new files as the store's were read: " + dir
                     + " has --map " + new TreeMap<>(m.mapping()) + " and category pattern " + m.categoryFromName() + ", this run has --map "

@@ -28,6 +28,7 @@ import org.voteworth.score.EmpiricalBayesPrior;
 import org.voteworth.score.VoteFrequencyTable;
 import org.voteworth.source.DumpFormatException;
 import org.voteworth.source.SourceOptions;
+import org.voteworth.store.Store;
 import org.voteworth.tally.ReviewerTableFile;
 import org.voteworth.tally.ReviewerTally;
 import org.voteworth.tally.TallyTable;
@@ -46,6 +47,7 @@ class SparkTallyTest {
     static Path dir;
     static SparkSession spark;
     static Path local;
+    static Path localStore;
     static Path store;
     static SparkTally.Result result;
     static List<ReviewerTally> written;
@@ -61,6 +63,9 @@ class SparkTallyTest {
         local = dir.resolve("local");
         Run r = CliTest.run("tally", DEMO.toString(), "--out", local.toString(), "--quiet", "--threads", "2");
         assertThat(r.code()).as(r.err()).isZero();
+        localStore = dir.resolve("local-store");
+        Run s = CliTest.run("tally", DEMO.toString(), "--store", localStore.toString(), "--quiet", "--threads", "2");
+        assertThat(s.code()).as(s.err()).isZero();
         store = dir.resolve("store");
         result = SparkTally.run(spark, new SparkTally.Request(List.of(DEMO.toString()), SourceOptions.defaults(),
                 store.toString(), 3, true, 0, 1));
@@ -108,6 +113,70 @@ class SparkTallyTest {
         assertThat(b.code()).as(b.err()).isZero();
         assertThat(a.out()).contains("planted-expert");
         assertThat(b.out().replace(store.toString(), "DIR")).isEqualTo(a.out().replace(local.toString(), "DIR"));
+    }
+
+    @Test
+    void theSparkStoreReadsAsTheLocalStore() throws IOException {
+        // Reference: the local engine's store of the same files. Spark's folder of part files (with _SUCCESS and .crc
+        // side files) reads back as the same reviewer table, in the same id order, and one reviewer is found in its part.
+        Store spark = Store.open(store);
+        Store reference = Store.open(localStore);
+        assertThat(spark.hasReviews()).isFalse();
+        List<ReviewerTally> fromSpark = new ArrayList<>();
+        spark.forEachReviewer(fromSpark::add);
+        List<ReviewerTally> fromLocal = new ArrayList<>();
+        reference.forEachReviewer(fromLocal::add);
+        assertThat(fromSpark).isEqualTo(fromLocal);
+        assertThat(spark.reviewer("planted-expert")).isEqualTo(reference.reviewer("planted-expert")).isPresent();
+        assertThat(spark.summary().describe()).isEqualTo(reference.summary().describe());
+    }
+
+    @Test
+    void rankAndSweepPrintTheSameOnTheSparkStoreAsOnTheLocalStore() {
+        List<List<String>> commands = List.of(
+                List.of("rank", "--rule", "bayes-mean", "--top", "25", "--quiet"),
+                List.of("rank", "--rule", "wilson", "--top", "40", "--quiet"),
+                List.of("sweep", "--bars", "0,5,10,50", "--quiet"),
+                List.of("compare", "--top", "20", "--quiet"));
+        for (List<String> c : commands) {
+            Run a = CliTest.run(withInput(c, localStore));
+            Run b = CliTest.run(withInput(c, store));
+            assertThat(a.code()).as(a.err()).isZero();
+            assertThat(b.code()).as(b.err()).isZero();
+            assertThat(b.out().replace(store.toString(), "DIR")).as(String.join(" ", c))
+                    .isEqualTo(a.out().replace(localStore.toString(), "DIR"));
+        }
+    }
+
+    @Test
+    void theReportRunsOnTheSparkStore() throws IOException {
+        // The report needs the reviewer table only; its data set overview stays empty, as for a reviewer table file.
+        Path html = dir.resolve("spark-report.html");
+        Run r = CliTest.run("report", store.toString(), "--out", html.toString(), "--top", "3", "--draws", "200", "--quiet");
+        assertThat(r.code()).as(r.err()).isZero();
+        assertThat(Files.readString(html)).contains("planted-expert");
+    }
+
+    private static String[] withInput(List<String> command, Path input) {
+        List<String> args = new ArrayList<>(command);
+        args.add(1, input.toString());
+        return args.toArray(String[]::new);
+    }
+
+    @Test
+    void commandsThatNeedEachReviewNameTheMissingParts() {
+        for (String[] c : List.of(new String[] {"overview", store.toString()},
+                new String[] {"rank", store.toString(), "--cap-votes", "10", "--quiet"},
+                new String[] {"profile", "planted-expert", "--store", store.toString()})) {
+            Run r = CliTest.run(c);
+            assertThat(r.code()).as(String.join(" ", c)).isNotZero();
+            assertThat(r.err()).as(String.join(" ", c)).contains(store.toString()).contains("per-review parts are missing")
+                    .contains("tally DUMP... --store");
+        }
+        Run append = CliTest.run("tally", DEMO.resolve("books.tsv.gz").toString(), "--store", store.toString(), "--append",
+                "--quiet");
+        assertThat(append.code()).isNotZero();
+        assertThat(append.err()).contains(store.toString()).contains("no per-review parts");
     }
 
     @Test
