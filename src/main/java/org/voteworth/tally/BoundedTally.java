@@ -333,7 +333,8 @@ public final class BoundedTally implements AutoCloseable {
             table.accept(row);
             if (++sinceCheck == CHECK_EVERY) {
                 sinceCheck = 0;
-                long mine = table.memoryBytes();
+                // Room for the table's next growth too: for a moment it holds an old and a new array.
+                long mine = table.memoryBytes() + table.growthBytes();
                 bytes = mine;
                 if (mine + othersBytes(this) > budget) {
                     try {

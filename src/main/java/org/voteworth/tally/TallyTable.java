@@ -502,6 +502,16 @@ public final class TallyTable implements ReviewSink {
         return index.memoryBytes() + pool.length * 4L + (long) capacity * (INTS * 4 + LONGS * 8);
     }
 
+    /**
+     * The most the next growth of one of the table's arrays allocates while the old one is still
+     * live (slot arrays by half, the id index and the category pool by doubling): a budget that
+     * leaves this much room is not overrun while the table grows.
+     */
+    public long growthBytes() {
+        long slotBytes = (long) capacity * (INTS * 4 + LONGS * 8);
+        return Math.max(Math.max(2 * index.memoryBytes(), slotBytes + slotBytes / 2), 2L * pool.length * 4);
+    }
+
     private void check(int slot) {
         if (slot < 0 || slot >= size()) {
             throw new IndexOutOfBoundsException("slot " + slot + " of " + size());
