@@ -3,6 +3,7 @@ package org.voteworth.cli;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.util.Optional;
 import org.voteworth.store.Store;
 import org.voteworth.tally.TallyTable;
 import org.voteworth.tally.TallyUnit;
@@ -30,10 +31,16 @@ final class AnalysisInput {
         return p;
     }
 
+    /** The store folder when the input is one (a single folder written by {@code tally --store}). */
+    static Optional<Path> store(DumpOptions o) {
+        return o.inputs.size() == 1 && Store.isStore(Path.of(o.inputs.get(0))) ? Optional.of(Path.of(o.inputs.get(0))) : Optional.empty();
+    }
+
     static TallyRun.Result read(DumpOptions o, ScoringOptions s, TallyUnit unit, Path rejectsFile, boolean quiet,
                                 PrintWriter err) throws IOException {
-        if (o.inputs.size() == 1 && Store.isStore(Path.of(o.inputs.get(0)))) {
-            return fromStore(Path.of(o.inputs.get(0)), unit, s.capVotes);
+        Optional<Path> store = store(o);
+        if (store.isPresent()) {
+            return fromStore(store.get(), unit, s.capVotes);
         }
         return TallyRun.run(o, unit, rejectsFile, quiet, err, s.capVotes);
     }
@@ -47,9 +54,9 @@ final class AnalysisInput {
     static TallyRun.Result readWithOverview(DumpOptions o, ScoringOptions s, TallyUnit unit, Path rejectsFile, boolean quiet,
                                             PrintWriter err) throws IOException {
         TallyRun.Result t = read(o, s, unit, rejectsFile, quiet, err);
-        Path in = o.inputs.size() == 1 ? Path.of(o.inputs.get(0)) : null;
-        if (in != null && Store.isStore(in) && Store.open(in).hasReviews()) {
-            TallyRun.Written w = StoreTally.overview(in);
+        Optional<Path> store = store(o);
+        if (store.isPresent() && Store.open(store.get()).hasReviews()) {
+            TallyRun.Written w = StoreTally.overview(store.get());
             return new TallyRun.Result(t.table(), t.summary(), t.rejectsFile(), t.seconds() + w.seconds(), t.bytes(), w.overview());
         }
         return t;

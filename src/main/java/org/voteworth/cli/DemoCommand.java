@@ -125,7 +125,7 @@ final class DemoCommand implements Callable<Integer> {
         ReportCommand.write(html, t, wilsonRun, wilson, top, ReportCommand.DEFAULT_ROWS, ids,
                 Optional.of(PromotionList.of("the raw-share top " + top + " (" + raw.bar().describe() + ")", rawTop)),
                 RankUncertainty.Settings.defaults(top, UncertaintyOptions.DEFAULT_SEED), ThresholdSweep.DEFAULT_BARS,
-                htmlParameters);
+                htmlParameters, Optional.empty(), List.of());
         written.add(html);
         String side = sideBySide(all, top, ids, table);
         String summary = summary(t, fit, all, side, ids);

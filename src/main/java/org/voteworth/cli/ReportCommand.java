@@ -5,10 +5,13 @@ import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.LinkedHashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.Set;
 import java.util.concurrent.Callable;
 import java.util.function.UnaryOperator;
 import org.voteworth.analysis.AuditResult;
@@ -17,6 +20,7 @@ import org.voteworth.analysis.PromotionAudit;
 import org.voteworth.analysis.PromotionList;
 import org.voteworth.analysis.RankBiasedOverlap;
 import org.voteworth.analysis.RankUncertainty;
+import org.voteworth.analysis.ReviewerProfile;
 import org.voteworth.analysis.RuleComparison;
 import org.voteworth.analysis.SweepResult;
 import org.voteworth.analysis.ThresholdSweep;
@@ -25,6 +29,7 @@ import org.voteworth.report.IdMask;
 import org.voteworth.report.RankingReport;
 import org.voteworth.score.Ranking;
 import org.voteworth.score.RankingRule;
+import org.voteworth.store.Store;
 import org.voteworth.tally.TallyUnit;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -38,7 +43,8 @@ import picocli.CommandLine.Spec;
                 + "against votes with control limits, the ranking under --rule with rank intervals and P(in top k), the "
                 + "entry-bar sweep, the rules compared, the audit of --list when given, a panel per top reviewer, and the "
                 + "cautions, parameters and input files. Prints the file's path.",
-                "Input: a dump (files, folders, globs) or a reviewers.csv written by 'tally'."})
+                "Input: a dump (files, folders, globs), a reviewers.csv written by 'tally', or a store written by 'tally --store';"
+                        + " from a store the page also profiles the top reviewers and those given by --profile."})
 final class ReportCommand implements Callable<Integer> {
     /** Ranked rows the ranking table holds at most; the page stays usable (paginated) at this size. */
     static final int DEFAULT_ROWS = 10_000;
@@ -75,6 +81,10 @@ final class ReportCommand implements Callable<Integer> {
                     + " reviewer_id column.")
     Path list;
 
+    @Option(names = "--profile", paramLabel = "ID",
+            description = "A reviewer to profile besides the top K (repeatable); needs a store as the input.")
+    List<String> profileIds = new ArrayList<>();
+
     @Option(names = "--out", defaultValue = "voteworth-report.html", paramLabel = "FILE",
             description = "The HTML file to write (default: ${DEFAULT-VALUE}).")
     Path out;
@@ -87,6 +97,11 @@ final class ReportCommand implements Callable<Integer> {
         if (top < 1 || rows < 1) {
             throw new IllegalArgumentException("--top and --rows must be at least 1, not " + top + " and " + rows);
         }
+        Optional<Path> store = AnalysisInput.store(dump);
+        if (store.isEmpty() && !profileIds.isEmpty()) {
+            throw new IllegalArgumentException("--profile needs a store as the input (written by 'tally --store DIR'), not "
+                    + String.join(" ", dump.inputs));
+        }
         Optional<PromotionList> promoted = list == null ? Optional.empty() : Optional.of(PromotionList.read(list));
         PrintWriter err = spec.commandLine().getErr();
         Path parent = out.toAbsolutePath().getParent();
@@ -95,7 +110,9 @@ final class ReportCommand implements Callable<Integer> {
         TallyRun.Result t = AnalysisInput.readWithOverview(dump, scoring, TallyUnit.REVIEWER, rejects, quiet, err);
         RankRun run = RankRun.of(t.table(), scoring);
         Map<String, String> p = new LinkedHashMap<>(AnalysisInput.parameters(run.fit, scoring, dump, t.table()));
-        write(out, t, run, run.primary, top, rows, privacy.ids(), promoted, uncertainty.settings(top, dump.threads()), bars, p);
+        Optional<Store> profiled = store.isEmpty() ? Optional.empty() : Optional.of(Store.open(store.get()));
+        write(out, t, run, run.primary, top, rows, privacy.ids(), promoted, uncertainty.settings(top, dump.threads()), bars, p,
+                profiled, profileIds);
         PrintWriter stdout = spec.commandLine().getOut();
         stdout.println(out.toAbsolutePath().normalize());
         stdout.flush();
@@ -112,10 +129,11 @@ final class ReportCommand implements Callable<Integer> {
      * @param primary the ranking the report is about (one of {@code run.compared})
      * @param promoted a list to audit against the top {@code k} of {@code primary}
      * @param parameters what the reader needs to reproduce the report; the rule, bars and seed are added
+     * @param store the store the input was read from, to profile the top {@code k} of {@code primary} and {@code profileIds}
      */
     static void write(Path file, TallyRun.Result t, RankRun run, Ranking primary, int k, int rows, UnaryOperator<String> ids,
                       Optional<PromotionList> promoted, RankUncertainty.Settings draws, List<Long> bars,
-                      Map<String, String> parameters) throws IOException {
+                      Map<String, String> parameters, Optional<Store> store, List<String> profileIds) throws IOException {
         Map<String, String> p = new LinkedHashMap<>(run.parameters(primary));
         p.putAll(parameters);
         p.put("lists", "top " + k);
@@ -133,8 +151,21 @@ final class ReportCommand implements Callable<Integer> {
                 new PromotionAudit.Settings(run.fit.prior(), primary, k, run.compared, draws, 0.9, run.settings.confidence(),
                         run.concentrationLimit), ids));
         audit.ifPresent(a -> p.put("audit", "the list " + a.list() + " against the top " + k + " under " + primary.rule().name()));
+        Optional<HtmlReport.Profiles> profiles = Optional.empty();
+        if (store.isPresent()) {
+            Set<String> wanted = new LinkedHashSet<>();
+            Arrays.stream(primary.top(k)).mapToObj(t.table()::id).forEach(wanted::add);
+            wanted.addAll(profileIds);
+            List<ReviewerProfile> found = new ArrayList<>();
+            for (String id : wanted) {
+                found.add(ReviewerProfile.of(id, store.get().reviewsOf(id), store.get().manifest().categories()));
+            }
+            profiles = Optional.of(new HtmlReport.Profiles(found, ids));
+            p.put("profiles", "the top " + k + (profileIds.isEmpty() ? "" : " and " + profileIds.size() + " asked for")
+                    + ", from the store's reviews");
+        }
         HtmlReport html = new HtmlReport("Reviewer credibility report", p, t.summary(), t.table(), t.overview(), ranking, u, k, sweep,
-                comparison, audit);
+                comparison, audit, profiles);
         Files.writeString(file, html.render());
     }
 }

@@ -8,17 +8,21 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import java.util.TreeMap;
+import java.util.function.UnaryOperator;
 import java.util.stream.Collectors;
 import org.voteworth.analysis.AuditResult;
 import org.voteworth.analysis.ComparisonResult;
 import org.voteworth.analysis.DatasetOverview;
 import org.voteworth.analysis.RankUncertainty;
+import org.voteworth.analysis.ReviewerProfile;
 import org.voteworth.analysis.SweepResult;
 import org.voteworth.report.chart.BarChart;
 import org.voteworth.report.chart.FunnelPlot;
 import org.voteworth.report.chart.MonthChart;
 import org.voteworth.report.chart.Palette;
 import org.voteworth.report.chart.RankIntervalChart;
+import org.voteworth.report.chart.ShareBarChart;
 import org.voteworth.report.chart.SweepChart;
 import org.voteworth.score.Explanation;
 import org.voteworth.score.Flag;
@@ -34,7 +38,7 @@ import org.voteworth.tally.TallyTable;
  * charts, inline style and script, and a content security policy that forbids every request, so
  * it opens offline in any browser. Sections: the data set, a funnel plot, the ranking with rank
  * intervals and P(in top k), the threshold sweep, the rule comparison, the audit of a list when
- * one is given, one panel per top reviewer, and the cautions, parameters and input files a reader
+ * one is given, one panel per top reviewer, the reviewer profiles when the input was a store, and the cautions, parameters and input files a reader
  * needs to reproduce it. Every value from the input is escaped by {@link Html#escape}; reviewer
  * ids arrive already masked when pseudonyms were asked for.
  *
@@ -49,16 +53,43 @@ import org.voteworth.tally.TallyTable;
  * @param sweep the threshold sweep
  * @param comparison the rule comparison
  * @param audit the audit of a promotion list, when one was given
+ * @param profiles the reviewer profiles, when the input was a store (otherwise the section says they need one)
  */
 public record HtmlReport(String title, Map<String, String> parameters, ScanSummary input, TallyTable table,
                          OverviewCounts overview,
                          RankingReport ranking, RankUncertainty.Result uncertainty, int k, SweepResult sweep,
-                         ComparisonResult comparison, Optional<AuditResult> audit) {
+                         ComparisonResult comparison, Optional<AuditResult> audit, Optional<Profiles> profiles) {
     /** The content security policy of the page: nothing may be fetched, only inline style, script and data images. */
     public static final String POLICY = "default-src 'none'; style-src 'unsafe-inline'; script-src 'unsafe-inline'; img-src data:";
 
     public HtmlReport {
         parameters = new LinkedHashMap<>(parameters);
+    }
+
+    /**
+     * Reviewer profiles read from a store, in the order shown.
+     *
+     * @param profiles one per reviewer looked up (found or not)
+     * @param ids the mask reviewer ids go through, the same as for the rest of the page
+     */
+    public record Profiles(List<ReviewerProfile> profiles, UnaryOperator<String> ids) {
+        public Profiles {
+            profiles = List.copyOf(profiles);
+        }
+
+        /** The HTML id of the profile of the reviewer shown as {@code shownId}, if there is one. */
+        Optional<String> anchorOf(String shownId) {
+            for (int i = 0; i < profiles.size(); i++) {
+                if (ids.apply(profiles.get(i).id()).equals(shownId)) {
+                    return Optional.of(anchor(i));
+                }
+            }
+            return Optional.empty();
+        }
+
+        static String anchor(int index) {
+            return "profile-" + (index + 1);
+        }
     }
 
     /** The whole page. */
@@ -80,6 +111,7 @@ public record HtmlReport(String title, Map<String, String> parameters, ScanSumma
                 new String[] {"sweep", "The entry-bar sweep"}, new String[] {"compare", "The rules compared"}));
         audit.ifPresent(a -> toc.add(new String[] {"audit", "The audit of the list"}));
         toc.add(new String[] {"reviewers", "Why each top reviewer stands where they stand"});
+        toc.add(new String[] {"profiles", "Reviewer profiles"});
         toc.add(new String[] {"cautions", "Cautions"});
         toc.add(new String[] {"parameters", "Parameters and input"});
         toc.forEach(t -> b.append("<li><a href=\"#").append(t[0]).append("\">").append(t[1]).append("</a></li>"));
@@ -91,6 +123,7 @@ public record HtmlReport(String title, Map<String, String> parameters, ScanSumma
         compareSection(b);
         audit.ifPresent(a -> auditSection(b, a));
         panels(b);
+        profilesSection(b);
         cautions(b);
         parametersSection(b);
         b.append("<script>\n").append(Html.resource("report.js")).append("</script>\n</body>\n</html>\n");
@@ -293,6 +326,8 @@ public record HtmlReport(String title, Map<String, String> parameters, ScanSumma
             RankUncertainty.Spread s = uncertainty.of(ranking.ranking().slotAt(e.rank()));
             b.append("<article class=\"panel\" id=\"reviewer-").append(e.rank()).append("\">\n<h3>#").append(e.rank()).append(' ')
                     .append(Html.escape(e.reviewer())).append("</h3>\n");
+            profiles.flatMap(p -> p.anchorOf(e.reviewer())).ifPresent(a -> b.append("<p class=\"note\"><a href=\"#").append(a)
+                    .append("\">Profile across all categories</a></p>\n"));
             for (Flag f : e.flags()) {
                 b.append("<span class=\"flag\">").append(Html.escape(f.words())).append("</span>");
             }
@@ -327,6 +362,60 @@ public record HtmlReport(String title, Map<String, String> parameters, ScanSumma
             b.append("</div>\n</article>\n");
         }
         b.append("</div>\n</section>\n");
+    }
+
+    private void profilesSection(StringBuilder b) {
+        section(b, "profiles", "Reviewer profiles");
+        if (profiles.isEmpty()) {
+            b.append("<p>Reviewer profiles need a store: the input of this report was a dump or a reviewer table. Run"
+                    + " <code>voteworth tally --store DIR</code> on the dump once and the report on DIR to see, for each top"
+                    + " reviewer, their reviews by category, stars against each category's, helpful share per review, verified"
+                    + " and incentivised shares, activity per month and the busiest days.</p>\n</section>\n");
+            return;
+        }
+        List<ReviewerProfile> all = profiles.get().profiles();
+        b.append("<p>").append(all.size()).append(" reviewers (the top ").append(k).append(" and those asked for with --profile)"
+                + " across all categories, from the store's reviews: stars are compared with the stars every review in the same"
+                + " categories gave.</p>\n");
+        for (int i = 0; i < all.size(); i++) {
+            ReviewerProfile p = all.get(i);
+            String id = Profiles.anchor(i);
+            b.append("<article class=\"panel\" id=\"").append(id).append("\">\n<h3>")
+                    .append(Html.escape(profiles.get().ids().apply(p.id()))).append("</h3>\n");
+            if (!p.found()) {
+                b.append("<p>Not in the store (no review by this id).</p>\n</article>\n");
+                continue;
+            }
+            b.append("<p class=\"profile-summary\">").append(Html.escape(ProfileWriter.summary(p))).append("</p>\n<div class=\"profile\">\n");
+            List<ReviewerProfile.CategoryLine> cats = p.categories();
+            figure(b, new BarChart(cats.stream().map(c -> c.category().isEmpty() ? "(no category)" : c.category()).toList(),
+                    cats.stream().map(ReviewerProfile.CategoryLine::reviews).toList(), "category", "reviews (count)", true, false)
+                    .svg(id + "-categories-chart", 460, 70 + 22 * Math.max(2, cats.size()), Palette.BLUE), "Reviews per category.");
+            List<Double> theirs = new ArrayList<>();
+            for (int s = 1; s <= 5; s++) {
+                theirs.add(p.stars().rated() == 0 ? Double.NaN : (double) p.stars().of(s) / p.stars().rated());
+            }
+            figure(b, new ShareBarChart(List.of("1", "2", "3", "4", "5"), List.of("their stars", "their categories' stars"),
+                    List.of(theirs, p.expectedStars()), "stars").svg(id + "-stars-chart", 460, 240, Palette.BLUISH_GREEN,
+                    Palette.ORANGE), "Their star ratings against the shares every review in their categories gives, weighted by"
+                    + " their reviews in each.");
+            if (!p.perMonth().isEmpty()) {
+                figure(b, MonthChart.svg(new TreeMap<>(p.perMonth()), "reviews (count)", id + "-months-chart", 460, 240),
+                        "Their reviews per month.");
+            }
+            b.append("</div>\n<h4>Categories: stars against the category's</h4>\n")
+                    .append(Html.table(ProfileWriter.categories(p), id + "-categories", "category"))
+                    .append("<h4>Stars against their category mix</h4>\n").append(Html.table(ProfileWriter.stars(p), id + "-stars", "stars"))
+                    .append("<h4>Activity per month</h4>\n").append(Html.table(ProfileWriter.monthGrid(p), id + "-months", "month"))
+                    .append("<h4>Busiest days</h4>\n").append(p.busiestDays().isEmpty() ? "<p>No day with more than one review.</p>\n"
+                            : Html.table(ProfileWriter.busiestDays(p), id + "-days", "day"))
+                    .append("<h4>Helpful share per review (the ").append(Math.min(ProfileWriter.LISTED, p.reviews().size()))
+                    .append(" most voted)</h4>\n")
+                    .append(Html.table(ProfileWriter.reviews(List.of(p), profiles.get().ids(), ProfileWriter.LISTED), id + "-reviews",
+                            "category, review or item"))
+                    .append("</article>\n");
+        }
+        b.append("</section>\n");
     }
 
     private void cautions(StringBuilder b) {

@@ -44,25 +44,18 @@ public final class ProfileWriter {
                 b.append("not in the store (no review by this id)\n");
                 continue;
             }
-            b.append(String.format(Locale.ROOT, "%s reviews, %d of %d votes helpful (%s), first %s, last %s; verified %s, "
-                            + "incentivised %s%n", p.reviews().size(), p.helpfulVotes(), p.totalVotes(), percent(p.helpfulShare()),
-                    date(p.firstDay()), date(p.lastDay()), share(p.verified(), p.verifiedKnown()),
-                    share(p.incentivised(), p.incentivisedKnown())));
+            b.append(summary(p)).append('\n');
             b.append(md ? "\n### Categories: stars against the category's\n\n" : "\nCategories: stars against the category's\n");
             b.append(grid(categories(p), md));
             b.append(md ? "\n### Stars against their category mix\n\n" : "\nStars against their category mix\n");
             b.append(grid(stars(p), md));
             b.append(md ? "\n### Activity per month\n\n" : "\nActivity per month\n");
-            Grid months = new Grid(List.of("month", "reviews>"));
-            p.perMonth().forEach((m, n) -> months.add(List.of(m.toString(), Long.toString(n))));
-            b.append(grid(months, md));
+            b.append(grid(monthGrid(p), md));
             b.append(md ? "\n### Busiest days\n\n" : "\nBusiest days\n");
             if (p.busiestDays().isEmpty()) {
                 b.append("no day with more than one review\n");
             } else {
-                Grid days = new Grid(List.of("day", "reviews>"));
-                p.busiestDays().forEach(d -> days.add(List.of(d.day().toString(), Long.toString(d.reviews()))));
-                b.append(grid(days, md));
+                b.append(grid(busiestDays(p), md));
             }
             b.append(md ? "\n### Helpful share per review (most voted " + Math.min(LISTED, p.reviews().size()) + ")\n\n"
                     : "\nHelpful share per review (most voted " + Math.min(LISTED, p.reviews().size()) + ")\n");
@@ -73,11 +66,33 @@ public final class ProfileWriter {
         return b.toString();
     }
 
+    /** The profile in one line: reviews, votes, first and last review, verified and incentivised shares. */
+    static String summary(ReviewerProfile p) {
+        return String.format(Locale.ROOT, "%s reviews, %d of %d votes helpful (%s), first %s, last %s; verified %s, incentivised %s",
+                p.reviews().size(), p.helpfulVotes(), p.totalVotes(), percent(p.helpfulShare()), date(p.firstDay()),
+                date(p.lastDay()), share(p.verified(), p.verifiedKnown()), share(p.incentivised(), p.incentivisedKnown()));
+    }
+
+    /** Reviews per calendar month, in order. */
+    static Grid monthGrid(ReviewerProfile p) {
+        Grid g = new Grid(List.of("month", "reviews>"));
+        p.perMonth().forEach((m, n) -> g.add(List.of(m.toString(), Long.toString(n))));
+        return g;
+    }
+
+    /** The busiest days, most reviews first. */
+    static Grid busiestDays(ReviewerProfile p) {
+        Grid g = new Grid(List.of("day", "reviews>"));
+        p.busiestDays().forEach(d -> g.add(List.of(d.day().toString(), Long.toString(d.reviews()))));
+        return g;
+    }
+
     private static String grid(Grid g, boolean md) {
         return md ? g.toMarkdown() : g.toText();
     }
 
-    private static Grid categories(ReviewerProfile p) {
+    /** Per category: the reviewer's reviews, and the shares of each star, theirs against the category's. */
+    static Grid categories(ReviewerProfile p) {
         List<String> h = new ArrayList<>(List.of("category", "reviews>"));
         for (int s = 1; s <= 5; s++) {
             h.add(s + "★ theirs>");
@@ -95,7 +110,8 @@ public final class ProfileWriter {
         return g;
     }
 
-    private static Grid stars(ReviewerProfile p) {
+    /** Their stars against the shares their category mix would give. */
+    static Grid stars(ReviewerProfile p) {
         Grid g = new Grid(List.of("stars", "reviews>", "share>", "expected_share>"));
         for (int s = 1; s <= 5; s++) {
             g.add(List.of(Integer.toString(s), Long.toString(p.stars().of(s)), starShare(p.stars(), s),
@@ -105,7 +121,7 @@ public final class ProfileWriter {
     }
 
     /** Reviews, the {@code limit} most voted of each profile (then in store order). */
-    private static Grid reviews(List<ReviewerProfile> profiles, UnaryOperator<String> ids, int limit) {
+    static Grid reviews(List<ReviewerProfile> profiles, UnaryOperator<String> ids, int limit) {
         Grid g = new Grid(List.of("reviewer", "date", "category", "review", "item", "stars>", "helpful>", "total>", "share>",
                 "verified", "incentivised", "file", "line>"));
         for (ReviewerProfile p : profiles) {
