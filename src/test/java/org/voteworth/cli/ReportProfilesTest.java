@@ -28,25 +28,25 @@ import org.voteworth.tally.Csv;
  * escaped, pseudonyms are those of the other outputs, and on a dump the section says it needs a store.
  */
 class ReportProfilesTest {
+    @TempDir
+    static Path dir;
+    static Path store;
+    static Path hostileStore;
     private static final Pattern ARTICLE = Pattern.compile("<article class=\"panel\" id=\"(profile-\\d+)\">\\n<h3>(.*?)</h3>(.*?)</article>",
             Pattern.DOTALL);
     private static final Pattern ROW = Pattern.compile("<tr(?: hidden)?>(.*?)</tr>", Pattern.DOTALL);
     private static final Pattern CELL = Pattern.compile("<td[^>]*>(.*?)</td>", Pattern.DOTALL);
 
-    @TempDir
-    static Path dir;
-    static Path store;
-    static Path hostileStore;
-
     @BeforeAll
     static void build() throws IOException {
+        hostileStore = dir.resolve("hostile-store");
+        CliTest.Run r = CliTest.run("tally", HostileDump.write(dir.resolve("hostile")).toString(), "--store", hostileStore.toString(),
+                "--quiet");
+        assertThat(r.code()).as(r.err()).isZero();
         Path dump = dir.resolve("dump");
         new DemoDumpGenerator().generate(dump, DemoOptions.rows(3_000).withSeed(11).withCategories(4));
         store = dir.resolve("store");
-        CliTest.Run r = CliTest.run("tally", dump.toString(), "--store", store.toString(), "--quiet");
-        assertThat(r.code()).as(r.err()).isZero();
-        hostileStore = dir.resolve("hostile-store");
-        r = CliTest.run("tally", HostileDump.write(dir.resolve("hostile")).toString(), "--store", hostileStore.toString(), "--quiet");
+        r = CliTest.run("tally", dump.toString(), "--store", store.toString(), "--quiet");
         assertThat(r.code()).as(r.err()).isZero();
     }
 
