@@ -32,6 +32,7 @@ class ReportProfilesTest {
     static Path dir;
     static Path store;
     static Path hostileStore;
+
     private static final Pattern ARTICLE = Pattern.compile("<article class=\"panel\" id=\"(profile-\\d+)\">\\n<h3>(.*?)</h3>(.*?)</article>",
             Pattern.DOTALL);
     private static final Pattern ROW = Pattern.compile("<tr(?: hidden)?>(.*?)</tr>", Pattern.DOTALL);
