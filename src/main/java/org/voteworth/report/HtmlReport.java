@@ -406,7 +406,8 @@ public record HtmlReport(String title, Map<String, String> parameters, ScanSumma
             b.append("</div>\n<h4>Categories: stars against the category's</h4>\n")
                     .append(Html.table(ProfileWriter.categories(p), id + "-categories", "category"))
                     .append("<h4>Stars against their category mix</h4>\n").append(Html.table(ProfileWriter.stars(p), id + "-stars", "stars"))
-                    .append("<h4>Activity per month</h4>\n").append(Html.table(ProfileWriter.monthGrid(p), id + "-months", "month"))
+                    .append("<details>\n<summary>Activity per month: the ").append(p.perMonth().size()).append(" months</summary>\n")
+                    .append(Html.table(ProfileWriter.monthGrid(p), id + "-months", "month")).append("</details>\n")
                     .append("<h4>Busiest days</h4>\n").append(p.busiestDays().isEmpty() ? "<p>No day with more than one review.</p>\n"
                             : Html.table(ProfileWriter.busiestDays(p), id + "-days", "day"))
                     .append("<h4>Helpful share per review (the ").append(Math.min(ProfileWriter.LISTED, p.reviews().size()))
