@@ -111,6 +111,13 @@ final class ReportCommand implements Callable<Integer> {
         RankRun run = RankRun.of(t.table(), scoring);
         Map<String, String> p = new LinkedHashMap<>(AnalysisInput.parameters(run.fit, scoring, dump, t.table()));
         Optional<Store> profiled = store.isEmpty() ? Optional.empty() : Optional.of(Store.open(store.get()));
+        if (profiled.isPresent() && !profiled.get().hasReviews()) {
+            if (!profileIds.isEmpty()) {
+                throw new IllegalArgumentException("--profile needs each review: " + store.get() + " holds the reviewer table"
+                        + " only; build a store with 'voteworth tally DUMP... --store DIR' on the dump files");
+            }
+            profiled = Optional.empty();
+        }
         write(out, t, run, run.primary, top, rows, privacy.ids(), promoted, uncertainty.settings(top, dump.threads()), bars, p,
                 profiled, profileIds);
         PrintWriter stdout = spec.commandLine().getOut();
@@ -129,7 +136,8 @@ final class ReportCommand implements Callable<Integer> {
      * @param primary the ranking the report is about (one of {@code run.compared})
      * @param promoted a list to audit against the top {@code k} of {@code primary}
      * @param parameters what the reader needs to reproduce the report; the rule, bars and seed are added
-     * @param store the store the input was read from, to profile the top {@code k} of {@code primary} and {@code profileIds}
+     * @param store the store the input was read from, when it holds each review: to profile the top {@code k} of
+     *     {@code primary} and {@code profileIds}
      */
     static void write(Path file, TallyRun.Result t, RankRun run, Ranking primary, int k, int rows, UnaryOperator<String> ids,
                       Optional<PromotionList> promoted, RankUncertainty.Settings draws, List<Long> bars,

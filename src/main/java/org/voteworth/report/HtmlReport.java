@@ -367,7 +367,8 @@ public record HtmlReport(String title, Map<String, String> parameters, ScanSumma
     private void profilesSection(StringBuilder b) {
         section(b, "profiles", "Reviewer profiles");
         if (profiles.isEmpty()) {
-            b.append("<p>Reviewer profiles need a store: the input of this report was a dump or a reviewer table. Run"
+            b.append("<p>Reviewer profiles need a store of every review: the input of this report was a dump, a reviewer table"
+                    + " or a store of the reviewer table only. Run"
                     + " <code>voteworth tally --store DIR</code> on the dump once and the report on DIR to see, for each top"
                     + " reviewer, their reviews by category, stars against each category's, helpful share per review, verified"
                     + " and incentivised shares, activity per month and the busiest days.</p>\n</section>\n");

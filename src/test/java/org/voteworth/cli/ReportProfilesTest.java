@@ -14,6 +14,7 @@ import java.util.List;
 import java.util.Set;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import java.util.stream.Stream;
 import java.util.stream.StreamSupport;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
@@ -204,5 +205,28 @@ class ReportProfilesTest {
         CliTest.Run r = CliTest.run("report", dump.toString(), "--out", out.toString(), "--quiet", "--profile", "reviewer-8");
         assertThat(r.code()).isNotZero();
         assertThat(r.err()).contains("--profile needs a store");
+    }
+
+    @Test
+    void aStoreOfTheReviewerTableOnlyGetsTheSameNoteAndRefusesProfileIds() throws IOException {
+        // A store without its per-review parts, as a reviewer-table-only writer leaves it.
+        Path tableOnly = dir.resolve("table-only");
+        try (Stream<Path> files = Files.walk(hostileStore)) {
+            for (Path f : files.toList()) {
+                if (!f.startsWith(hostileStore.resolve("reviews"))) {
+                    Files.copy(f, tableOnly.resolve(hostileStore.relativize(f).toString()));
+                }
+            }
+        }
+        Path manifest = tableOnly.resolve("manifest.json");
+        Files.writeString(manifest, Files.readString(manifest).replaceAll("\"reviewParts\" : \\d+", "\"reviewParts\" : 0")
+                .replaceAll(" mod \\d+\"", " mod 0\""));
+        Path out = dir.resolve("table-only-report.html");
+        run("report", tableOnly.toString(), "--out", out.toString(), "--top", "2", "--draws", "200", "--quiet");
+        assertThat(Files.readString(out)).contains("Reviewer profiles need a store of every review")
+                .doesNotContain("Profile across all categories");
+        CliTest.Run r = CliTest.run("report", tableOnly.toString(), "--out", out.toString(), "--quiet", "--profile", "reviewer-8");
+        assertThat(r.code()).isNotZero();
+        assertThat(r.err()).contains("--profile needs each review").contains("table-only");
     }
 }
