@@ -1,5 +1,6 @@
 package org.voteworth.analysis;
 
+import java.io.IOException;
 import java.time.LocalDate;
 import java.time.YearMonth;
 import java.util.ArrayList;
@@ -9,6 +10,7 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.TreeMap;
 import org.voteworth.source.ReviewRow;
+import org.voteworth.store.Store;
 import org.voteworth.store.StoreManifest.CategoryStats;
 import org.voteworth.store.StoredReview;
 import org.voteworth.tally.StarCounts;
@@ -86,6 +88,16 @@ public record ReviewerProfile(String id, List<StoredReview> reviews, List<Catego
     /** A review's helpful share, or NaN when it has no votes. */
     public static double share(StoredReview r) {
         return r.totalVotes() == 0 ? Double.NaN : (double) r.helpfulVotes() / r.totalVotes();
+    }
+
+    /**
+     * The profile of {@code id} from a store that holds every review: its reviews, read from the one
+     * part that can hold them, against the store's per-category star histograms.
+     *
+     * @throws IOException when the store holds the reviewer table only, or a part cannot be read
+     */
+    public static ReviewerProfile of(Store store, String id) throws IOException {
+        return of(id, store.reviewsOf(id), store.manifest().categories());
     }
 
     /**

@@ -1,6 +1,7 @@
 package org.voteworth.api;
 
 import java.io.IOException;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.ArrayList;
@@ -9,14 +10,18 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.function.UnaryOperator;
+import org.voteworth.analysis.ReviewerProfile;
 import org.voteworth.report.Cautions;
 import org.voteworth.report.Grid;
 import org.voteworth.report.IdMask;
+import org.voteworth.report.OutputFormat;
+import org.voteworth.report.ProfileWriter;
 import org.voteworth.score.EmpiricalBayesPrior;
 import org.voteworth.score.PriorFit;
 import org.voteworth.score.Ranker;
 import org.voteworth.score.VoteFrequencyTable;
 import org.voteworth.source.ScanSummary;
+import org.voteworth.store.Store;
 import org.voteworth.tally.ReviewerTableFile;
 import org.voteworth.tally.ReviewerTally;
 import org.voteworth.tally.TallyTable;
@@ -29,8 +34,8 @@ import tech.tablesaw.columns.numbers.NumberColumnFormatter;
 
 /**
  * One row per reviewer across every file and category of a dump: the tallies every rule ranks
- * from, with the reconciliation of the rows they came from. Get one from {@link Dump#tally()} or
- * {@link #read(Path)}; rank it with {@link #rank(Rule)}, slice it as a Tablesaw table with
+ * from, with the reconciliation of the rows they came from. Get one from {@link Dump#tally()},
+ * {@link #open(Path)} (a store) or {@link #read(Path)}; rank it with {@link #rank(Rule)}, slice it as a Tablesaw table with
  * {@link #toTablesaw()}.
  */
 public final class ReviewerTable {
@@ -40,10 +45,17 @@ public final class ReviewerTable {
     private final Optional<Path> rejectsFile;
     private final long capVotes;
     private final UnaryOperator<String> ids;
+    private final Optional<Store> store;
     private PriorFit prior;
 
     ReviewerTable(TallyTable table, String source, ScanSummary summary, Optional<Path> rejectsFile, long capVotes,
                   UnaryOperator<String> ids) {
+        this(table, source, summary, rejectsFile, capVotes, ids, Optional.empty());
+    }
+
+    private ReviewerTable(TallyTable table, String source, ScanSummary summary, Optional<Path> rejectsFile, long capVotes,
+                          UnaryOperator<String> ids, Optional<Store> store) {
+        this.store = store;
         this.table = table;
         this.source = source;
         this.summary = summary;
@@ -58,9 +70,44 @@ public final class ReviewerTable {
                 Optional.empty(), 0, UnaryOperator.identity());
     }
 
+    /**
+     * Opens the reviewer table of a store written by {@code voteworth tally DUMP --store DIR}, with
+     * the reconciliation per file its manifest records; a store with every review can also
+     * {@link #profile(String...)} reviewers.
+     *
+     * @throws IOException when the folder is not a store, or a store file is missing, damaged or disagrees with the manifest
+     */
+    public static ReviewerTable open(Path storeDir) throws IOException {
+        Store s = Store.open(storeDir);
+        Optional<Path> rejects = Optional.of(s.rejectsFile()).filter(Files::isRegularFile);
+        return new ReviewerTable(s.reviewerTable(), storeDir.toString(), s.summary(), rejects, 0, UnaryOperator.identity(),
+                Optional.of(s));
+    }
+
     /** The same table whose outputs show a keyed pseudonym (HMAC-SHA-256) instead of each reviewer id. */
     public ReviewerTable pseudonymized(String key) {
-        return new ReviewerTable(table, source, summary, rejectsFile, capVotes, IdMask.withKey(key));
+        return new ReviewerTable(table, source, summary, rejectsFile, capVotes, IdMask.withKey(key), store);
+    }
+
+    /**
+     * Profiles reviewers across all categories from the store's reviews: reviews by category, stars
+     * against each category's, helpful share per review, activity per month, busiest days. An id
+     * not in the store gives a profile that is not {@link ReviewerProfile#found() found}.
+     *
+     * @throws IllegalStateException when the table was not opened from a store that holds every review
+     * @throws IOException when a store file cannot be read
+     */
+    public Report<List<ReviewerProfile>> profile(String... reviewerIds) throws IOException {
+        Store s = store.filter(Store::hasReviews).orElseThrow(() -> new IllegalStateException("profiles need every review of "
+                + "a store, and the table of " + source + (store.isPresent() ? " is a store of the reviewer table only" : " is not "
+                + "from a store") + ": build one with 'voteworth tally DUMP... --store DIR' and open it with ReviewerTable.open(DIR)"));
+        List<ReviewerProfile> profiles = new ArrayList<>(reviewerIds.length);
+        for (String id : reviewerIds) {
+            profiles.add(ReviewerProfile.of(s, id));
+        }
+        Map<String, String> parameters = ProfileWriter.storeParameters(source, s.manifest());
+        return Report.markdown(List.copyOf(profiles), ProfileWriter.write(profiles, OutputFormat.MD, ids, parameters),
+                ProfileWriter.write(profiles, OutputFormat.TABLE, ids, parameters));
     }
 
     /** Reviewers in the table. */

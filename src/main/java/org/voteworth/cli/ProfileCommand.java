@@ -3,7 +3,6 @@ package org.voteworth.cli;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
@@ -47,14 +46,11 @@ final class ProfileCommand implements Callable<Integer> {
         List<ReviewerProfile> profiles = new ArrayList<>();
         int missing = 0;
         for (String id : ids) {
-            ReviewerProfile p = ReviewerProfile.of(id, s.reviewsOf(id), s.manifest().categories());
+            ReviewerProfile p = ReviewerProfile.of(s, id);
             missing += p.found() ? 0 : 1;
             profiles.add(p);
         }
-        Map<String, String> parameters = new LinkedHashMap<>();
-        parameters.put("store", store + " (" + s.manifest().accepted() + " reviews of " + s.manifest().reviewers()
-                + " reviewers from " + s.manifest().files().size() + " files)");
-        parameters.put("category stars", "every review in the store, per category");
+        Map<String, String> parameters = ProfileWriter.storeParameters(store.toString(), s.manifest());
         report.prepare(new DumpOptions());
         report.emit(spec, "profile", f, ProfileWriter.write(profiles, f, privacy.ids(), parameters));
         if (missing > 0 && !report.quiet) {

@@ -166,7 +166,7 @@ final class ReportCommand implements Callable<Integer> {
             wanted.addAll(profileIds);
             List<ReviewerProfile> found = new ArrayList<>();
             for (String id : wanted) {
-                found.add(ReviewerProfile.of(id, store.get().reviewsOf(id), store.get().manifest().categories()));
+                found.add(ReviewerProfile.of(store.get(), id));
             }
             profiles = Optional.of(new HtmlReport.Profiles(found, ids));
             p.put("profiles", "the top " + k + (profileIds.isEmpty() ? "" : " and " + profileIds.size() + " asked for")

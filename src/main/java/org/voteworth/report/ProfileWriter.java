@@ -3,12 +3,14 @@ package org.voteworth.report;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Comparator;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.function.UnaryOperator;
 import org.voteworth.analysis.ReviewerProfile;
 import org.voteworth.source.ReviewRow;
+import org.voteworth.store.StoreManifest;
 import org.voteworth.store.StoredReview;
 import org.voteworth.tally.StarCounts;
 
@@ -21,6 +23,15 @@ public final class ProfileWriter {
     static final int LISTED = 10;
 
     private ProfileWriter() {
+    }
+
+    /** The parameters a profile report lists for the store {@code label} with manifest {@code m}. */
+    public static Map<String, String> storeParameters(String label, StoreManifest m) {
+        Map<String, String> parameters = new LinkedHashMap<>();
+        parameters.put("store", label + " (" + m.accepted() + " reviews of " + m.reviewers() + " reviewers from "
+                + m.files().size() + " files)");
+        parameters.put("category stars", "every review in the store, per category");
+        return parameters;
     }
 
     public static String write(List<ReviewerProfile> profiles, OutputFormat format, UnaryOperator<String> ids,
@@ -185,7 +196,7 @@ public final class ProfileWriter {
     }
 
     private static Map<String, Long> starMap(StarCounts s) {
-        Map<String, Long> m = new java.util.LinkedHashMap<>();
+        Map<String, Long> m = new LinkedHashMap<>();
         for (int k = 1; k <= 5; k++) {
             m.put(Integer.toString(k), s.of(k));
         }
@@ -193,7 +204,7 @@ public final class ProfileWriter {
     }
 
     private static Map<String, Double> expected(ReviewerProfile p) {
-        Map<String, Double> m = new java.util.LinkedHashMap<>();
+        Map<String, Double> m = new LinkedHashMap<>();
         for (int k = 1; k <= 5; k++) {
             if (!Double.isNaN(p.expectedStars().get(k - 1))) {
                 m.put(Integer.toString(k), p.expectedStars().get(k - 1));
@@ -203,7 +214,7 @@ public final class ProfileWriter {
     }
 
     private static Map<String, Long> months(ReviewerProfile p) {
-        Map<String, Long> m = new java.util.LinkedHashMap<>();
+        Map<String, Long> m = new LinkedHashMap<>();
         p.perMonth().forEach((k, v) -> m.put(k.toString(), v));
         return m;
     }
