@@ -105,5 +105,6 @@ done
   awk -F'|' '{printf "| %s | %d | %.0f | %.2f | %.2f | %.0f | %.2f | %.0f |\n", $1, $2, $4/1e6, $5, $7, $4/$5/1e6, $5/($4/1e9), $6/1024}' "$work/sizes"
   echo
 } | tee -a "$work/report.md"
-echo "report: $work/report.md (copied to ${BENCH_REPORT:-bench-report.md})" >&2
-cp "$work/report.md" "${BENCH_REPORT:-bench-report.md}"
+report="${BENCH_REPORT:-target/bench-report.md}"; mkdir -p "$(dirname "$report")"
+echo "report: $work/report.md (copied to $report)" >&2
+cp "$work/report.md" "$report"
