@@ -92,11 +92,6 @@ public final class BoundedTally implements AutoCloseable {
         write(file, WrittenTally.NONE);
     }
 
-    /** As {@link #write(Path)}, handing each tally written, in id order, to {@code each} as well (an object per reviewer). */
-    public void write(Path file, java.util.function.Consumer<ReviewerTally> each) throws IOException {
-        write(file, WrittenTally.asValues(Objects.requireNonNull(each, "each")));
-    }
-
     /**
      * As {@link #write(Path)}, counting every reviewer written into {@code overview} (reviews per
      * reviewer, overall and per category) straight from the writer's record, without an object per

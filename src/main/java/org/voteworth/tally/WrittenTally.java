@@ -1,7 +1,5 @@
 package org.voteworth.tally;
 
-import java.util.function.Consumer;
-
 /**
  * Told each reviewer's tally as the reviewer table is written, in id order, as the writer's own
  * reused record: what the overview needs (reviews overall and per category) costs no object per
@@ -13,9 +11,4 @@ interface WrittenTally {
     WrittenTally NONE = (record, names) -> { };
 
     void written(TallyRecord record, Categories names);
-
-    /** Each tally as a value: an object per reviewer, for callers outside this package. */
-    static WrittenTally asValues(Consumer<ReviewerTally> each) {
-        return (record, names) -> each.accept(record.toTally(names));
-    }
 }
