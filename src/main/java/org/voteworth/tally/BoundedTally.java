@@ -1,6 +1,7 @@
 package org.voteworth.tally;
 
 import java.io.IOException;
+import java.io.OutputStream;
 import java.io.UncheckedIOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -24,8 +25,19 @@ import org.voteworth.source.ReviewSink;
  * on success and on failure. Not thread-safe except that each worker sink runs on its own thread.
  */
 public final class BoundedTally implements AutoCloseable {
-    /** Spill partitions: the merge holds about 1/PARTITIONS of the reviewers at a time. */
-    static final int PARTITIONS = 32;
+    /** Range partitions aimed at: the merge holds about 1/PARTITIONS of the reviewers at a time per thread. */
+    static final int PARTITIONS = 64;
+    /** Ids sampled to place the partition boundaries. */
+    private static final int SAMPLE = 1 << 16;
+    /** Tallies in memory up to which an unspilled table is merged and written on one thread. */
+    private static final long SMALL = 1 << 18;
+    /** Heap a partition may take while merged, however small the budget: below it, merging in pieces costs more than it saves. */
+    private static final long MIN_ROOM = 4L << 20;
+    private final long minRoom;
+    private final long small;
+    private final java.util.concurrent.atomic.AtomicInteger mergedInPieces = new java.util.concurrent.atomic.AtomicInteger();
+    /** Most pieces one partition is merged in (each piece reads the partition's spill files once). */
+    private static final int MAX_PIECES = 64;
     /** Heap per tally in a table being merged, with its id index and sort keys (rough, from {@link TallyTable#memoryBytes()}). */
     private static final long BYTES_PER_TALLY = 200;
     private static final int CHECK_EVERY = 1 << 14;
@@ -36,6 +48,12 @@ public final class BoundedTally implements AutoCloseable {
     private final List<Worker> workers = new ArrayList<>();
     private Path spillDir;
     private int spills;
+    /** Fixed at the first spill (every spill file uses the same boundaries), or when writing. */
+    private RangePartitioner partitioner;
+    /** Tallies spilled to each partition so far. */
+    private long[] spilledPerPartition = new long[0];
+    /** Per partition: the spill files holding its tallies. */
+    private final List<List<Path>> spillFiles = new ArrayList<>();
     private long reviewers = -1;
     private boolean liveMerged;
 
@@ -44,6 +62,16 @@ public final class BoundedTally implements AutoCloseable {
      * @param tmpDir where the spill folder is made
      */
     public BoundedTally(TallyUnit unit, long budgetBytes, Path tmpDir) {
+        this(unit, budgetBytes, tmpDir, MIN_ROOM, SMALL);
+    }
+
+    /**
+     * With the least heap a partition may take while merged, and the size up to which an unspilled
+     * table is written on one thread, set (tests make both tiny, to take the partitioned paths).
+     */
+    BoundedTally(TallyUnit unit, long budgetBytes, Path tmpDir, long minMergeRoom, long smallTable) {
+        this.minRoom = minMergeRoom;
+        this.small = smallTable;
         this.unit = Objects.requireNonNull(unit, "unit");
         if (budgetBytes < 1) {
             throw new IllegalArgumentException("--memory must be positive, got " + budgetBytes + " bytes");
@@ -79,121 +107,194 @@ public final class BoundedTally implements AutoCloseable {
         return liveMerged;
     }
 
+    /** How many partitions were too large to merge in memory at once (tests check both ways). */
+    int partitionsMergedInPieces() {
+        return mergedInPieces.get();
+    }
+
     /** The spill folder, when one was made (tests check that it is gone after {@link #close()}). */
     Optional<Path> spillDir() {
         return Optional.ofNullable(spillDir);
     }
 
     /**
-     * Writes the reviewer table (ordered by id) to {@code file}; call once, after scanning.
-     * Without spilling, the workers' tables are merged in memory when that fits the budget.
+     * Writes the reviewer table (ordered by id) to {@code file}; call once, after scanning. The
+     * tallies are merged one range partition at a time on as many threads as scanned, and the
+     * partitions written one after another: they are ranges of the id order.
      */
     public void write(Path file) throws IOException {
-        write(file, WrittenTally.NONE);
+        write(file, null);
     }
 
     /**
      * As {@link #write(Path)}, counting every reviewer written into {@code overview} (reviews per
-     * reviewer, overall and per category) straight from the writer's record, without an object per
-     * reviewer; the same counts as {@link OverviewCounts#addReviewer} for each.
+     * reviewer, overall and per category) straight from the writer's records, without an object
+     * per reviewer; the same counts as {@link OverviewCounts#addReviewer} for each.
      */
     public void write(Path file, OverviewCounts overview) throws IOException {
-        write(file, overview::addWritten);
-    }
-
-    private void write(Path file, WrittenTally each) throws IOException {
+        int threads = Math.max(1, workers.size());
         long inMemory = workers.stream().mapToLong(w -> w.table.memoryBytes()).sum();
-        // Merging and sorting in memory needs about twice the tables' footprint.
-        if (!spilled() && 2 * inMemory <= budget) {
+        long liveSlots = workers.stream().mapToLong(w -> w.table.size()).sum();
+        if (!spilled() && liveSlots <= small && 2 * inMemory <= budget) {
+            // A small table: merged and written on this thread, sooner than partitions could be set up.
             TallyTable all = mergedInMemory();
             reviewers = all.size();
-            ReviewerTableFile.write(all, file, each);
+            ReviewerTableFile.write(all, file, overview == null ? WrittenTally.NONE : overview::addWritten);
             return;
         }
-        // As many threads as scanned: each holds one partition (about 1/PARTITIONS of the reviewers) at a time.
-        int threads = Math.max(1, workers.size());
+        RangePartitioner partitioner = partitionerOf(workers.stream().map(w -> w.table).toArray(TallyTable[]::new));
+        long partitionBytes = (spilledTallies() + liveSlots) / partitioner.parts() * BYTES_PER_TALLY;
         // The tables still in memory join each partition directly, rather than going to disk first, when
         // they and the partitions being merged fit the budget together.
-        long liveSlots = workers.stream().mapToLong(w -> w.table.size()).sum();
-        long partitionBytes = (spilledTallies() + liveSlots) / PARTITIONS * BYTES_PER_TALLY;
         boolean keepLive = inMemory + threads * partitionBytes <= budget;
-        liveMerged = keepLive;
+        liveMerged = keepLive && spilled();
+        if (!keepLive) {
+            Parallel.forEach(workers.size(), threads, w -> workers.get(w).spill());
+        }
         List<TallyTable> live = new ArrayList<>();
+        List<int[][]> livePartitions = new ArrayList<>();
+        long[] sizes = spilledPerPartition(partitioner.parts());
         if (keepLive) {
-            workers.forEach(w -> live.add(w.table));
-        } else {
-            inParallel(workers.size(), threads, w -> workers.get(w).spill());
+            for (Worker w : workers) {
+                int[][] of = w.table.slotsByPartition(partitioner);
+                live.add(w.table);
+                livePartitions.add(of);
+                for (int p = 0; p < of.length; p++) {
+                    sizes[p] += of[p].length;
+                }
+            }
         }
-        List<byte[]> livePartitions = new ArrayList<>();
-        for (TallyTable t : live) {
-            livePartitions.add(t.partitions(PARTITIONS));
+        // A partition whose tallies would not fit beside the others is merged in hash pieces through sorted runs.
+        long room = Math.max(minRoom, (budget - (keepLive ? inMemory : 0)) / threads);
+        Partitions parts = new Partitions(live, livePartitions, sizes, room, overview != null);
+        try (OutputStream out = Files.newOutputStream(file)) {
+            out.write((String.join(",", ReviewerTableFile.HEADER) + "\n").getBytes(java.nio.charset.StandardCharsets.UTF_8));
+            long[] written = new long[1];
+            Parallel.inOrder(partitioner.parts(), threads, parts::merge, piece -> {
+                piece.writeTo(out);
+                written[0] += piece.rows;
+                if (overview != null) {
+                    overview.mergeFrom(piece.overview);
+                }
+            });
+            reviewers = written[0];
         }
-        List<Path> runs = new ArrayList<>();
-        for (int p = 0; p < PARTITIONS; p++) {
-            runs.add(spillFolder().resolve("run-" + p + ".bin"));
+    }
+
+    /** The partitioner fixed at the first spill, or one made now from {@code tables} when nothing was spilled. */
+    private synchronized RangePartitioner partitionerOf(TallyTable... tables) {
+        if (partitioner == null) {
+            TallyTable[] rest = java.util.Arrays.copyOfRange(tables, Math.min(1, tables.length), tables.length);
+            partitioner = (tables.length == 0 ? new TallyTable(unit) : tables[0]).rangePartitioner(PARTITIONS, SAMPLE, rest);
         }
-        inParallel(PARTITIONS, threads, p -> {
+        return partitioner;
+    }
+
+    /** One merged partition, formatted, waiting to be written in its place. */
+    private static final class Piece {
+        final java.io.ByteArrayOutputStream bytes;
+        final Path file;
+        final long rows;
+        final OverviewCounts overview;
+
+        Piece(java.io.ByteArrayOutputStream bytes, Path file, long rows, OverviewCounts overview) {
+            this.bytes = bytes;
+            this.file = file;
+            this.rows = rows;
+            this.overview = overview;
+        }
+
+        void writeTo(OutputStream out) throws IOException {
+            if (bytes != null) {
+                bytes.writeTo(out);
+            } else {
+                Files.copy(file, out);
+                Files.delete(file);
+            }
+        }
+    }
+
+    /** The merge of each range partition: spilled tallies read back, plus those of the tables kept in memory. */
+    private final class Partitions {
+        private final List<TallyTable> live;
+        private final List<int[][]> livePartitions;
+        private final long[] sizes;
+        private final long room;
+        private final boolean countReviewers;
+
+        Partitions(List<TallyTable> live, List<int[][]> livePartitions, long[] sizes, long room, boolean countReviewers) {
+            this.live = live;
+            this.livePartitions = livePartitions;
+            this.sizes = sizes;
+            this.room = room;
+            this.countReviewers = countReviewers;
+        }
+
+        Piece merge(int p) throws IOException {
+            OverviewCounts counts = countReviewers ? new OverviewCounts() : null;
+            WrittenTally each = counts == null ? WrittenTally.NONE : counts::addWritten;
+            long bytes = sizes[p] * BYTES_PER_TALLY;
+            if (bytes <= room) {
+                TallyTable t = mergedPiece(p, 1, 0);
+                java.io.ByteArrayOutputStream out = new java.io.ByteArrayOutputStream((int) Math.min(1 << 30, 16 + sizes[p] * 120));
+                long rows = writeSorted(t, new ReviewerTableFile.Rows(out, t.categoryDictionary(), each, false));
+                deletePartitionFiles(p);
+                return new Piece(out, null, rows, counts);
+            }
+            // Too large for memory at once: split it by id hash into pieces that fit, sort each to a run, merge the runs.
+            mergedInPieces.incrementAndGet();
+            int pieces = (int) Math.min(MAX_PIECES, (bytes + room - 1) / room);
+            List<Path> runs = new ArrayList<>();
+            for (int q = 0; q < pieces; q++) {
+                Path run = spillFolder().resolve("run-p" + p + "-" + q + ".bin");
+                runs.add(run);
+                TallyTable t = mergedPiece(p, pieces, q);
+                try (SpillFile.Out out = SpillFile.create(run)) {
+                    t.writeRun(t.sortedById(), out);
+                }
+            }
+            deletePartitionFiles(p);
+            Path file = spillFolder().resolve("piece-p" + p + ".csv");
+            long rows;
+            Categories dictionary = new Categories();
+            try (ReviewerTableFile.Rows out = new ReviewerTableFile.Rows(Files.newOutputStream(file), dictionary, each, false)) {
+                rows = mergeRuns(runs, dictionary, out);
+            }
+            for (Path run : runs) {
+                Files.delete(run);
+            }
+            return new Piece(null, file, rows, counts);
+        }
+
+        /** The tallies of piece {@code q} of {@code pieces} (by id hash) of partition {@code p}, merged into one table. */
+        private TallyTable mergedPiece(int p, int pieces, int q) throws IOException {
             TallyTable t = new TallyTable(unit);
             for (Path f : partitionFiles(p)) {
                 try (SpillFile.In in = SpillFile.open(f)) {
-                    t.readSpill(in);
+                    t.readSpill(in, pieces, q);
                 }
-                Files.delete(f);
             }
             for (int k = 0; k < live.size(); k++) {
-                t.mergePartition(live.get(k), livePartitions.get(k), p);
+                t.mergeSlots(live.get(k), livePartitions.get(k)[p], pieces, q);
             }
-            try (SpillFile.Out out = SpillFile.create(runs.get(p))) {
-                t.writeRun(t.sortedById(), out);
+            return t;
+        }
+
+        private void deletePartitionFiles(int p) throws IOException {
+            for (Path f : partitionFiles(p)) {
+                Files.delete(f);
             }
-        });
-        reviewers = mergeRuns(runs, file, each);
+        }
     }
 
-    /** One of several numbered pieces of work. */
-    private interface Task {
-        void run(int i) throws IOException;
-    }
-
-    /** Runs {@code task} for 0 .. n-1 on up to {@code threads} threads; throws the first failure after all stopped. */
-    private static void inParallel(int n, int threads, Task task) throws IOException {
-        java.util.concurrent.atomic.AtomicInteger next = new java.util.concurrent.atomic.AtomicInteger();
-        java.util.concurrent.atomic.AtomicReference<Throwable> failure = new java.util.concurrent.atomic.AtomicReference<>();
-        Runnable loop = () -> {
-            int i;
-            while (failure.get() == null && (i = next.getAndIncrement()) < n) {
-                try {
-                    task.run(i);
-                } catch (Throwable t) {
-                    failure.compareAndSet(null, t);
-                }
+    private static long writeSorted(TallyTable t, ReviewerTableFile.Rows rows) throws IOException {
+        try (rows) {
+            TallyRecord r = new TallyRecord();
+            for (int s : t.sortedById()) {
+                t.load(s, r, null);
+                rows.write(r);
             }
-        };
-        List<Thread> pool = new ArrayList<>();
-        for (int t = 1; t < Math.min(threads, n); t++) {
-            Thread th = new Thread(loop, "merge-" + t);
-            th.setDaemon(true);
-            th.start();
-            pool.add(th);
-        }
-        loop.run();
-        for (Thread th : pool) {
-            try {
-                th.join();
-            } catch (InterruptedException e) {
-                Thread.currentThread().interrupt();
-                throw new java.io.InterruptedIOException("interrupted while merging spilled tallies");
-            }
-        }
-        Throwable t = failure.get();
-        if (t instanceof IOException io) {
-            throw io;
-        }
-        if (t instanceof RuntimeException r) {
-            throw r;
-        }
-        if (t instanceof Error e) {
-            throw e;
+            return rows.count();
         }
     }
 
@@ -210,12 +311,24 @@ public final class BoundedTally implements AutoCloseable {
         return all;
     }
 
-    private List<Path> partitionFiles(int p) throws IOException {
-        String suffix = "-p" + p + ".bin";
-        try (Stream<Path> s = Files.list(spillDir)) {
-            return s.filter(f -> f.getFileName().toString().startsWith("spill-") && f.getFileName().toString().endsWith(suffix))
-                    .sorted().toList();
+    /** The spill files of partition {@code p} that hold tallies, in name order. */
+    private synchronized List<Path> partitionFiles(int p) {
+        return p < spillFiles.size() ? spillFiles.get(p).stream().sorted().toList() : List.of();
+    }
+
+    /** Keeps the spill files that hold tallies for the merge, and deletes the empty ones. */
+    private synchronized void spilled(Path[] files, long[] perPartition) throws IOException {
+        while (spillFiles.size() < files.length) {
+            spillFiles.add(new ArrayList<>());
         }
+        for (int p = 0; p < files.length; p++) {
+            if (perPartition[p] > 0) {
+                spillFiles.get(p).add(files[p]);
+            } else {
+                Files.delete(files[p]);
+            }
+        }
+        spilled(perPartition);
     }
 
     /** One sorted run being merged: its stream, its category ids in the merge's dictionary, its current tally. */
@@ -234,9 +347,8 @@ public final class BoundedTally implements AutoCloseable {
         }
     }
 
-    /** Merges runs sorted by id whose ids are disjoint (hash partitions) into the reviewer table; returns the rows written. */
-    private static long mergeRuns(List<Path> runs, Path file, WrittenTally each) throws IOException {
-        Categories dictionary = new Categories();
+    /** Merges runs sorted by id whose ids are disjoint (hash pieces) into {@code rows}, whose names are {@code dictionary}; returns the rows written. */
+    private static long mergeRuns(List<Path> runs, Categories dictionary, ReviewerTableFile.Rows rows) throws IOException {
         List<Cursor> cursors = new ArrayList<>();
         try {
             for (Path r : runs) {
@@ -249,16 +361,15 @@ public final class BoundedTally implements AutoCloseable {
                     heads.add(c);
                 }
             }
-            try (ReviewerTableFile.Rows rows = new ReviewerTableFile.Rows(Files.newOutputStream(file), dictionary, each)) {
-                while (!heads.isEmpty()) {
-                    Cursor c = heads.poll();
-                    rows.write(c.current);
-                    if (c.advance()) {
-                        heads.add(c);
-                    }
+            long before = rows.count();
+            while (!heads.isEmpty()) {
+                Cursor c = heads.poll();
+                rows.write(c.current);
+                if (c.advance()) {
+                    heads.add(c);
                 }
-                return rows.count();
             }
+            return rows.count() - before;
         } finally {
             for (Cursor c : cursors) {
                 c.in.close();
@@ -280,12 +391,23 @@ public final class BoundedTally implements AutoCloseable {
 
     private long spilledTallies;
 
-    private synchronized void spilledTallies(long n) {
-        spilledTallies += n;
+    private synchronized void spilled(long[] perPartition) {
+        if (spilledPerPartition.length < perPartition.length) {
+            spilledPerPartition = java.util.Arrays.copyOf(spilledPerPartition, perPartition.length);
+        }
+        for (int p = 0; p < perPartition.length; p++) {
+            spilledPerPartition[p] += perPartition[p];
+            spilledTallies += perPartition[p];
+        }
     }
 
     private synchronized long spilledTallies() {
         return spilledTallies;
+    }
+
+    /** Tallies spilled to each of {@code parts} partitions. */
+    private synchronized long[] spilledPerPartition(int parts) {
+        return java.util.Arrays.copyOf(spilledPerPartition, parts);
     }
 
     private synchronized long othersBytes(Worker self) {
@@ -348,13 +470,16 @@ public final class BoundedTally implements AutoCloseable {
             }
             Path dir = spillFolder();
             int n = nextSpill();
-            SpillFile.Out[] parts = new SpillFile.Out[PARTITIONS];
+            RangePartitioner ranges = partitionerOf(table);
+            SpillFile.Out[] parts = new SpillFile.Out[ranges.parts()];
+            Path[] files = new Path[parts.length];
+            long[] written;
             try {
-                for (int p = 0; p < PARTITIONS; p++) {
-                    parts[p] = SpillFile.create(dir.resolve(String.format(java.util.Locale.ROOT, "spill-w%03d-%06d-p%d.bin", number, n, p)));
+                for (int p = 0; p < parts.length; p++) {
+                    files[p] = dir.resolve(String.format(java.util.Locale.ROOT, "spill-w%03d-%06d-p%d.bin", number, n, p));
+                    parts[p] = SpillFile.create(files[p]);
                 }
-                table.spill(parts);
-                spilledTallies(table.size());
+                written = table.spill(parts, ranges);
             } finally {
                 for (SpillFile.Out o : parts) {
                     if (o != null) {
@@ -362,6 +487,7 @@ public final class BoundedTally implements AutoCloseable {
                     }
                 }
             }
+            spilled(files, written);
             table = new TallyTable(unit);
             bytes = 0;
         }

@@ -178,17 +178,24 @@ final class KeyIndex {
         return bytesSlot(other.arena, at + 4, readInt(other.arena, at));
     }
 
-    /** Which of {@code parts} spill partitions the id of {@code slot} belongs to; the same in every table. */
+    /** Which of {@code parts} pieces the id of {@code slot} falls in by its hash; the same in every table. */
     int partition(int slot, int parts) {
         long r = refs[slot];
-        int h;
         if (r >= 0) {
-            h = LongIntMap.mix(r);
-        } else {
-            int at = (int) (-r - 1);
-            h = hash(arena, at + 4, readInt(arena, at));
+            return pieceOfNumber(r, parts);
         }
-        return Math.floorMod(h, parts);
+        int at = (int) (-r - 1);
+        return pieceOfBytes(arena, at + 4, readInt(arena, at), parts);
+    }
+
+    /** {@link #partition} for the canonical number {@code n}. */
+    static int pieceOfNumber(long n, int parts) {
+        return Math.floorMod(LongIntMap.mix(n), parts);
+    }
+
+    /** {@link #partition} for the byte id {@code b[off, off+len)}. */
+    static int pieceOfBytes(byte[] b, int off, int len, int parts) {
+        return Math.floorMod(hash(b, off, len), parts);
     }
 
     /** The slot of the canonical number {@code n}, created if new. */

@@ -71,6 +71,8 @@ public final class ReviewerTableFile {
      */
     static final class Rows implements AutoCloseable {
         private static final int FLUSH_AT = 1 << 16;
+        /** Most bytes of a row between its id and its categories: 17 numbers of up to 20 characters, 3 shares, 2 dates, commas. */
+        private static final int FIXED_PART = 17 * 21 + 3 * 9 + 2 * 11 + 8;
         private final OutputStream out;
         private final WrittenTally each;
         /** Category names by id; may grow while rows are written. */
@@ -86,11 +88,17 @@ public final class ReviewerTableFile {
 
         /** With {@code each} told every tally written ({@link WrittenTally#NONE} to skip). */
         Rows(OutputStream out, Categories categoryNames, WrittenTally each) throws IOException {
+            this(out, categoryNames, each, true);
+        }
+
+        /** As {@link #Rows(OutputStream, Categories, WrittenTally)}; without the header line when {@code header} is false (one piece of a table written in pieces). */
+        Rows(OutputStream out, Categories categoryNames, WrittenTally each, boolean header) {
             this.out = out;
             this.each = each;
             names = categoryNames;
-            ascii(String.join(",", HEADER));
-            put((byte) '\n');
+            if (header) {
+                ascii(String.join(",", HEADER) + "\n");
+            }
         }
 
         /** Makes the cell text of every category id below {@code n} ready. */
@@ -120,6 +128,8 @@ public final class ReviewerTableFile {
 
         void write(TallyRecord r) throws IOException {
             id(r);
+            // Room for every number, share and date of the row at once: the writes below do not check.
+            room(FIXED_PART);
             cell(r.reviews);
             cell(r.helpful);
             cell(r.total);
@@ -146,6 +156,7 @@ public final class ReviewerTableFile {
             date(r.lastDay);
             put((byte) ',');
             categories(r);
+            room(1);
             put((byte) '\n');
             count++;
             each.written(r, names);
@@ -202,11 +213,11 @@ public final class ReviewerTableFile {
             if (fast) {
                 for (int j = 0; j < n; j++) {
                     int at = order[j];
+                    byte[] name = cell[r.categoryIds[at]];
+                    room(name.length + 24);
                     if (j > 0) {
                         put((byte) ';');
                     }
-                    byte[] name = cell[r.categoryIds[at]];
-                    room(name.length);
                     System.arraycopy(name, 0, buf, len, name.length);
                     len += name.length;
                     put((byte) ':');
@@ -234,7 +245,6 @@ public final class ReviewerTableFile {
                 ascii(Long.toString(v));
                 return;
             }
-            room(20);
             if (v < 10) {
                 // Most counts of most reviewers are one digit.
                 buf[len++] = (byte) ('0' + v);
@@ -272,18 +282,26 @@ public final class ReviewerTableFile {
             if (epochDay == ReviewerTally.NO_DATE) {
                 return;
             }
-            LocalDate d = LocalDate.ofEpochDay(epochDay);
-            int y = d.getYear();
+            // Civil date from days since 1970-01-01 (the days-to-civil algorithm of H. Hinnant's
+            // "chrono-Compatible Low-Level Date Algorithms"), for years 0 to 9999.
+            long z = epochDay + 719468L;
+            long era = (z >= 0 ? z : z - 146096) / 146097;
+            long doe = z - era * 146097;
+            long yoe = (doe - doe / 1460 + doe / 36524 - doe / 146096) / 365;
+            long doy = doe - (365 * yoe + yoe / 4 - yoe / 100);
+            long mp = (5 * doy + 2) / 153;
+            int d = (int) (doy - (153 * mp + 2) / 5 + 1);
+            int m = (int) (mp < 10 ? mp + 3 : mp - 9);
+            long y = yoe + era * 400 + (m <= 2 ? 1 : 0);
             if (y < 0 || y > 9999) {
-                ascii(d.toString());
+                ascii(LocalDate.ofEpochDay(epochDay).toString());
                 return;
             }
-            room(10);
-            fixed(y, 4);
+            fixed((int) y, 4);
             buf[len++] = '-';
-            fixed(d.getMonthValue(), 2);
+            fixed(m, 2);
             buf[len++] = '-';
-            fixed(d.getDayOfMonth(), 2);
+            fixed(d, 2);
         }
 
         private void fixed(int v, int width) {
@@ -308,8 +326,8 @@ public final class ReviewerTableFile {
             len += b.length;
         }
 
+        /** One byte; only where {@link #write} made room for it, or after {@link #room}. */
         private void put(byte b) {
-            room(1);
             buf[len++] = b;
         }
 

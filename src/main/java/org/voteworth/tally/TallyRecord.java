@@ -74,6 +74,11 @@ final class TallyRecord {
         return idLength;
     }
 
+    /** Which of {@code pieces} the id falls in by its hash: the same as {@link KeyIndex#partition} for a slot with this id. */
+    int pieceOf(int pieces) {
+        return numeric ? KeyIndex.pieceOfNumber(number, pieces) : KeyIndex.pieceOfBytes(id, 0, idLength, pieces);
+    }
+
     String idString() {
         return new String(idBytes(), 0, idLength, StandardCharsets.UTF_8);
     }

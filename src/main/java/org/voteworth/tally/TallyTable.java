@@ -209,31 +209,81 @@ public final class TallyTable implements ReviewSink {
 
     /** Adds every tally of {@code other} into this table (same meaning as {@link ReviewerTally#merge}). */
     public void mergeFrom(TallyTable other) {
-        mergeSlots(other, null, 0);
+        mergeSlots(other, null, other.size(), 1, 0);
     }
 
     /**
-     * Adds the tallies of {@code other} whose spill partition ({@link #partitions}) is {@code p};
-     * {@code other} is only read, so several threads may take partitions of it at once.
+     * Adds the tallies of {@code other}'s {@code slots} whose id hash puts them in piece
+     * {@code piece} of {@code pieces} ({@link #pieceOf}; 1 piece: all of them). {@code other} is
+     * only read, so several threads may take parts of it at once.
      */
-    void mergePartition(TallyTable other, byte[] partitionOf, int p) {
-        mergeSlots(other, partitionOf, p);
+    void mergeSlots(TallyTable other, int[] slots, int pieces, int piece) {
+        mergeSlots(other, slots, slots.length, pieces, piece);
     }
 
-    /** The spill partition of every slot, as {@link #spill} would choose it among {@code parts} streams. */
-    byte[] partitions(int parts) {
+    /** The slots of each range partition under {@code partitioner} (as {@link #spill} chooses it), each in slot order. */
+    int[][] slotsByPartition(RangePartitioner partitioner) {
         flush();
-        if (parts > 256) {
-            throw new IllegalArgumentException("at most 256 partitions, not " + parts);
+        int n = size();
+        byte[] of = new byte[n];
+        int[] count = new int[partitioner.parts()];
+        byte[] digits = new byte[20];
+        for (int s = 0; s < n; s++) {
+            int p = partitioner.of(partitionKey(s, digits));
+            of[s] = (byte) p;
+            count[p]++;
         }
-        byte[] of = new byte[size()];
-        for (int s = 0; s < of.length; s++) {
-            of[s] = (byte) index.partition(s, parts);
+        int[][] slots = new int[count.length][];
+        for (int p = 0; p < count.length; p++) {
+            slots[p] = new int[count[p]];
+            count[p] = 0;
         }
-        return of;
+        for (int s = 0; s < n; s++) {
+            int p = of[s] & 0xFF;
+            slots[p][count[p]++] = s;
+        }
+        return slots;
     }
 
-    private void mergeSlots(TallyTable other, byte[] partitionOf, int p) {
+    /** The {@link RangePartitioner#key} of the id of {@code slot}; {@code digits} is scratch room. */
+    private long partitionKey(int slot, byte[] digits) {
+        return RangePartitioner.key(index.chunk(slot, 0, digits));
+    }
+
+    /**
+     * Boundaries for {@code parts} range partitions from the ids of this table: the keys of up to
+     * {@code sample} slots spread over it (in a table of millions of reviewers, tens of thousands of
+     * keys place the boundaries within a fraction of a percent).
+     */
+    RangePartitioner rangePartitioner(int parts, int sample, TallyTable... more) {
+        flush();
+        long total = size();
+        for (TallyTable t : more) {
+            t.flush();
+            total += t.size();
+        }
+        long[] keys = new long[(int) Math.min(total, sample)];
+        int n = 0;
+        byte[] digits = new byte[20];
+        long step = Math.max(1, total / Math.max(1, keys.length));
+        TallyTable[] all = new TallyTable[more.length + 1];
+        all[0] = this;
+        System.arraycopy(more, 0, all, 1, more.length);
+        for (TallyTable t : all) {
+            for (long s = 0; s < t.size() && n < keys.length; s += step) {
+                keys[n++] = t.partitionKey((int) s, digits);
+            }
+        }
+        return RangePartitioner.fromSample(keys, n, parts);
+    }
+
+    /** Which of {@code pieces} the id of {@code slot} falls in by its hash (the same in every table, and for a spilled record). */
+    private int pieceOf(int slot, int pieces) {
+        return pieces <= 1 ? 0 : index.partition(slot, pieces);
+    }
+
+    /** Merges {@code other}'s slots {@code slots[0, n)} (null: slots 0 .. n-1) that fall in the piece. */
+    private void mergeSlots(TallyTable other, int[] slots, int n, int pieces, int piece) {
         flush();
         other.flush();
         if (other.unit != unit) {
@@ -244,8 +294,9 @@ public final class TallyTable implements ReviewSink {
             catMap[c] = categories.idOf(other.categories.name(c));
         }
         // Slot by slot on the arrays: this is the in-memory merge of every worker's table.
-        for (int o = 0; o < other.size(); o++) {
-            if (partitionOf != null && partitionOf[o] != (byte) p) {
+        for (int i = 0; i < n; i++) {
+            int o = slots == null ? i : slots[i];
+            if (other.pieceOf(o, pieces) != piece) {
                 continue;
             }
             int s = index.slotOf(other.index, o);
@@ -414,23 +465,33 @@ public final class TallyTable implements ReviewSink {
     }
 
     /**
-     * Writes every tally to one of {@code parts.length} partition streams, chosen by a hash of the
-     * id that is the same in every table, so that the partitions of many tables can be merged one
-     * at a time. Each stream gets this table's category names first and an end mark last.
+     * Writes every tally to the stream of its range partition under {@code partitioner} (one
+     * stream per partition), so that the partitions of many tables can be merged one at a time.
+     * Each stream gets this table's category names first and an end mark last.
+     *
+     * @return the tallies written to each partition
      */
-    void spill(SpillFile.Out[] parts) throws IOException {
+    long[] spill(SpillFile.Out[] parts, RangePartitioner partitioner) throws IOException {
         flush();
+        if (parts.length != partitioner.parts()) {
+            throw new IllegalArgumentException(parts.length + " streams for " + partitioner.parts() + " partitions");
+        }
         for (SpillFile.Out out : parts) {
             writeCategoryNames(out);
         }
+        long[] written = new long[parts.length];
         TallyRecord r = new TallyRecord();
+        byte[] digits = new byte[20];
         for (int s = 0; s < size(); s++) {
+            int p = partitioner.of(partitionKey(s, digits));
             load(s, r, null);
-            r.write(parts[index.partition(s, parts.length)]);
+            r.write(parts[p]);
+            written[p]++;
         }
         for (SpillFile.Out out : parts) {
             out.write(TallyRecord.END);
         }
+        return written;
     }
 
     /** Writes the tallies of {@code slots}, in that order, in the format of {@link #spill}. */
@@ -466,10 +527,18 @@ public final class TallyTable implements ReviewSink {
 
     /** Adds every tally of one stream written by {@link #spill} or {@link #writeRun} (same meaning as {@link #mergeFrom}). */
     void readSpill(SpillFile.In in) throws IOException {
+        readSpill(in, 1, 0);
+    }
+
+    /** As {@link #readSpill(SpillFile.In)}, only the tallies in piece {@code piece} of {@code pieces} by id hash ({@link #pieceOf}). */
+    void readSpill(SpillFile.In in, int pieces, int piece) throws IOException {
         flush();
         int[] catMap = readCategoryNames(in, categories);
         TallyRecord r = new TallyRecord();
         while (r.read(in, catMap)) {
+            if (pieces > 1 && r.pieceOf(pieces) != piece) {
+                continue;
+            }
             int s = r.numeric ? index.slotOfNumber(r.number) : index.slotOf(r.idBytes(), 0, r.idLength());
             ready(s);
             add(s, r);

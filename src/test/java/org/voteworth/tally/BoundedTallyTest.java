@@ -134,6 +134,75 @@ class BoundedTallyTest {
     }
 
     @Test
+    void partitionsTooLargeToMergeAtOnceAreMergedInPiecesWithTheSameResult() throws IOException {
+        new DemoDumpGenerator().generate(dir.resolve("dump"), DemoOptions.rows(30_000).withGzip(false).withCategories(3));
+        List<DumpFile> files = DumpFinder.find(List.of(dir.resolve("dump").toString()), CategoryFromName.defaults());
+        TallyTable reference = new TallyTable();
+        new org.voteworth.source.DumpReader(SourceOptions.defaults()).read(files, reference, new RejectCounter());
+        Path expected = dir.resolve("expected.csv");
+        ReviewerTableFile.write(reference, expected);
+        for (int threads : new int[] {1, 2}) {
+            for (long budget : new long[] {20_000, Long.MAX_VALUE}) {
+                Path got = dir.resolve("got-" + threads + ".csv");
+                try (BoundedTally tally = new BoundedTally(TallyUnit.REVIEWER, budget, dir, 1, 0)) {
+                    new ParallelDumpReader(SourceOptions.defaults(), threads).read(files, w -> tally.newSink(), new RejectCounter(),
+                            ProgressListener.NONE);
+                    tally.write(got);
+                    // Without a budget nothing is spilled, and the partitions (of tables kept in memory) are merged whole.
+                    assertThat(tally.spilled()).isEqualTo(budget != Long.MAX_VALUE);
+                    assertThat(tally.partitionsMergedInPieces() > 0).as("threads %d", threads).isEqualTo(budget != Long.MAX_VALUE);
+                }
+                assertThat(Files.mismatch(expected, got)).as("threads %d budget %d", threads, budget).isEqualTo(-1L);
+            }
+        }
+    }
+
+    /**
+     * Partition boundaries come from the ids seen before the first spill. Input sorted by id (or
+     * ids that agree on their first eight bytes) puts most later reviewers into one partition;
+     * the table must come out the same, that partition being merged in pieces.
+     */
+    @Test
+    void inputSortedByIdAndIdsWithALongCommonPrefixGiveTheSameTable() throws IOException {
+        for (String prefix : new String[] {"", "reviewer-0000"}) {
+            TallyTable reference = new TallyTable();
+            BoundedTally tally = new BoundedTally(TallyUnit.REVIEWER, 120_000, dir, 20_000, 0);
+            org.voteworth.source.ReviewSink sink = tally.newSink();
+            org.voteworth.source.ReviewRow row = new org.voteworth.source.ReviewRow();
+            row.file = new DumpFile(dir.resolve("x.tsv"), "toys", DumpFile.Compression.NONE, 0);
+            byte[] cat = "toys".getBytes(java.nio.charset.StandardCharsets.UTF_8);
+            for (int i = 0; i < 60_000; i++) {
+                String id = prefix + (100_000 + i / 2);
+                long total = i % 7;
+                long helpful = total / 2;
+                reference.add(id, helpful, total, 1 + i % 5, i % 2 == 0, i % 3 == 0, "toys", 18000 + i % 400);
+                row.buf = id.getBytes(java.nio.charset.StandardCharsets.UTF_8);
+                row.reviewerOff = 0;
+                row.reviewerLen = row.buf.length;
+                row.categoryBuf = cat;
+                row.categoryOff = 0;
+                row.categoryLen = cat.length;
+                row.helpful = helpful;
+                row.total = total;
+                row.stars = 1 + i % 5;
+                row.verified = i % 2 == 0 ? 1 : 0;
+                row.incentivised = i % 3 == 0 ? 1 : 0;
+                row.epochDay = 18000 + i % 400;
+                sink.accept(row);
+            }
+            Path got = dir.resolve("got.csv");
+            Path expected = dir.resolve("expected.csv");
+            try (tally) {
+                tally.write(got);
+                assertThat(tally.spilled()).isTrue();
+                assertThat(tally.partitionsMergedInPieces()).as("prefix '%s'", prefix).isPositive();
+            }
+            ReviewerTableFile.write(reference, expected);
+            assertThat(Files.mismatch(expected, got)).as("prefix '%s'", prefix).isEqualTo(-1L);
+        }
+    }
+
+    @Test
     void fastDecimalMatchesTheFormatter() throws IOException {
         Random rnd = new Random(5);
         double[] values = new double[200_000];
