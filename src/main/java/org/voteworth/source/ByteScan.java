@@ -28,6 +28,20 @@ final class ByteScan {
         return ~(((x & LOW7) + LOW7) | x | LOW7);
     }
 
+    /** The eight bytes at {@code a[i...]} as a little-endian word (byte i lowest). */
+    static long word(byte[] a, int i) {
+        return (long) LONGS.get(a, i);
+    }
+
+    /**
+     * 0x80 in exactly the bytes of {@code w} that are at most 0x0A (tab, line feed and the rarer
+     * control bytes below them), 0 elsewhere: one test finds both a TSV line's delimiters and its end.
+     * Adding 0x75 to the low seven bits sets the high bit from 0x0B up, and cannot carry into the next byte.
+     */
+    static long atMostLineFeed(long w) {
+        return ~(((w & LOW7) + 0x7575757575757575L) | w | LOW7);
+    }
+
     /** First index in [from, to) holding {@code b}, or -1. */
     static int indexOf(byte[] a, int from, int to, byte b, long pattern) {
         int i = from;

@@ -160,7 +160,10 @@ public final class DumpScanner {
         boolean eof = false;
         boolean headerSeen = known != null;
         while (true) {
-            int lf = ByteScan.indexOf(buf, scanFrom, len, LF, LFS);
+            // TSV rows: the line end and the fields in one pass; otherwise the line end first.
+            boolean scanned = headerSeen && parser.tsv();
+            int lf = scanned ? parser.scanTsv(buf, pos, len) : ByteScan.indexOf(buf, scanFrom, len, LF, LFS);
+            scanned &= lf >= 0;
             int lineEnd;
             if (lf >= 0) {
                 lineEnd = lf;
@@ -193,7 +196,7 @@ public final class DumpScanner {
             } else {
                 row.line = line;
                 counts.rowsRead++;
-                Reject r = parser.parse(buf, pos, lineEnd, row);
+                Reject r = scanned ? parser.parseScanned(buf, pos, lineEnd, row) : parser.parse(buf, pos, lineEnd, row);
                 if (r.isNone()) {
                     counts.accepted++;
                     sink.accept(row);

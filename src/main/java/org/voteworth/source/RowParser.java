@@ -135,6 +135,95 @@ public final class RowParser {
         return fill(buf, start, end, into);
     }
 
+    /** Fields found by the last {@link #scanTsv}, and where its line ends (without LF and trailing CR). */
+    private int scannedFields;
+    private int scannedEnd;
+
+    /**
+     * TSV only: finds the end of the line that starts at {@code b[start]} and the bounds of its
+     * fields in one pass over its bytes, for {@link #parseScanned}. Faster than finding the line
+     * end first and then its fields with {@link #parse}, with the same result.
+     *
+     * @return the index of the line's LF, or -1 when there is none before {@code limit} (the line
+     *     goes on past the bytes given; nothing usable is kept)
+     */
+    public int scanTsv(byte[] b, int start, int limit) {
+        if (csv) {
+            throw new IllegalStateException("scanTsv is for tab-separated rows");
+        }
+        java.util.Arrays.fill(from, -1);
+        int[] fieldOf = fieldOfColumn;
+        int cols = columnCount;
+        int col = 0;
+        int fieldStart = start;
+        int i = start;
+        for (; i + 8 <= limit; i += 8) {
+            long m = ByteScan.atMostLineFeed(ByteScan.word(b, i));
+            while (m != 0) {
+                int j = i + (Long.numberOfTrailingZeros(m) >>> 3);
+                m &= m - 1;
+                byte c = b[j];
+                if (c == '\t') {
+                    if (col < cols && fieldOf[col] >= 0) {
+                        from[fieldOf[col]] = fieldStart;
+                        to[fieldOf[col]] = j;
+                    }
+                    col++;
+                    fieldStart = j + 1;
+                } else if (c == '\n') {
+                    return lineScanned(b, start, j, col, fieldStart);
+                }
+            }
+        }
+        for (; i < limit; i++) {
+            byte c = b[i];
+            if (c == '\t') {
+                if (col < cols && fieldOf[col] >= 0) {
+                    from[fieldOf[col]] = fieldStart;
+                    to[fieldOf[col]] = i;
+                }
+                col++;
+                fieldStart = i + 1;
+            } else if (c == '\n') {
+                return lineScanned(b, start, i, col, fieldStart);
+            }
+        }
+        return -1;
+    }
+
+    private int lineScanned(byte[] b, int start, int lf, int col, int fieldStart) {
+        int end = lf > start && b[lf - 1] == '\r' ? lf - 1 : lf;
+        if (col < columnCount && fieldOfColumn[col] >= 0) {
+            from[fieldOfColumn[col]] = fieldStart;
+            to[fieldOfColumn[col]] = Math.max(fieldStart, end);
+        }
+        scannedFields = col + 1;
+        scannedEnd = end;
+        return lf;
+    }
+
+    /**
+     * Parses the line that the last {@link #scanTsv} found, from {@code start} to {@code lf} (its
+     * LF), into {@code into}: the same checks, in the same order, and the same result as
+     * {@link #parse} of that line.
+     */
+    public Reject parseScanned(byte[] b, int start, int lf, ReviewRow into) {
+        int end = scannedEnd;
+        if (isBlank(b, start, end)) {
+            return new Reject(Reject.EMPTY_ROW, Reject.ROW, "", "blank line");
+        }
+        if (scannedFields != columnCount) {
+            return new Reject(Reject.FIELD_COUNT, Reject.ROW, Integer.toString(scannedFields),
+                    "expected " + columnCount + " fields, found " + scannedFields);
+        }
+        return fill(b, start, end, into);
+    }
+
+    /** Whether rows are tab-separated, so that {@link #scanTsv} applies. */
+    public boolean tsv() {
+        return !csv;
+    }
+
     private int splitTsv(byte[] b, int start, int end) {
         int p = start;
         for (int col = 0; col <= lastMappedColumn; col++) {

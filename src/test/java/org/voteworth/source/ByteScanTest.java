@@ -34,4 +34,22 @@ class ByteScanTest {
             }
         }
     }
+
+    /** The test for bytes up to 0x0A must flag exactly those bytes, for every byte value in every position. */
+    @Test
+    void flagsExactlyTheBytesUpToLineFeed() {
+        Random rnd = new Random(17);
+        for (int round = 0; round < 20_000; round++) {
+            byte[] a = new byte[8];
+            for (int i = 0; i < 8; i++) {
+                a[i] = (byte) (round < 256 ? (round + 37 * i) : rnd.nextInt(256));
+            }
+            long m = ByteScan.atMostLineFeed(ByteScan.word(a, 0));
+            for (int i = 0; i < 8; i++) {
+                boolean flagged = ((m >>> (8 * i)) & 0xFF) == 0x80;
+                assertThat(flagged).as("byte 0x%02x at %d", a[i] & 0xFF, i).isEqualTo((a[i] & 0xFF) <= 0x0A);
+                assertThat((m >>> (8 * i)) & 0x7F).isZero();
+            }
+        }
+    }
 }

@@ -430,4 +430,61 @@ class RowParserTest {
         with.forEach((i, v) -> f[i] = v);
         return f;
     }
+
+    /**
+     * Finding a TSV line's end and fields in one pass must give what finding the end first and
+     * then parsing the line gives: same reject reason, field and value, same row, for lines with
+     * stray tabs and control bytes, CR endings, blanks, missing and extra fields and bad values.
+     */
+    @Test
+    void oneTsvPassParsesLikeLineEndThenFields() {
+        Random rnd = new Random(23);
+        RowParser oneByOne = tsv();
+        RowParser onePass = tsv();
+        String[] junk = {"\t", "\r", "\u0001", "\u0008", " ", "", "x", "é", "-1", "9999999999999999999", "2021-02-30", "4.0"};
+        ReviewRow expected = new ReviewRow();
+        for (int round = 0; round < 20_000; round++) {
+            StringBuilder line = new StringBuilder(SampleDump.row("R" + rnd.nextInt(100), rnd.nextInt(3), 2 + rnd.nextInt(3)));
+            for (int k = rnd.nextInt(4); k > 0; k--) {
+                int at = rnd.nextInt(line.length() + 1);
+                line.insert(at, junk[rnd.nextInt(junk.length)]);
+            }
+            if (rnd.nextInt(5) == 0) {
+                line.setLength(rnd.nextInt(line.length() + 1));
+            }
+            if (rnd.nextInt(4) == 0) {
+                line.append('\r');
+            }
+            if (rnd.nextInt(50) == 0) {
+                line.setLength(0);
+                line.append(rnd.nextBoolean() ? " \t " : "\r");
+            }
+            byte[] text = line.toString().getBytes(StandardCharsets.UTF_8);
+            // The line with its LF, then the start of another line, at an offset in a larger buffer.
+            int off = rnd.nextInt(9);
+            byte[] b = new byte[off + text.length + 6];
+            System.arraycopy(text, 0, b, off, text.length);
+            b[off + text.length] = '\n';
+            System.arraycopy("R2\t1\t".getBytes(StandardCharsets.US_ASCII), 0, b, off + text.length + 1, 5);
+            expected.file = GARDEN;
+            Reject want = oneByOne.parse(b, off, off + text.length, expected);
+            row.file = GARDEN;
+            int lf = onePass.scanTsv(b, off, b.length);
+            assertThat(lf).isEqualTo(off + text.length);
+            Reject got = onePass.parseScanned(b, off, lf, row);
+            String what = line.toString().replace("\t", "<TAB>").replace("\r", "<CR>");
+            assertThat(got).as(what).isEqualTo(want);
+            if (want.isNone()) {
+                assertThat(row.reviewer()).as(what).isEqualTo(expected.reviewer());
+                assertThat(row.review()).as(what).isEqualTo(expected.review());
+                assertThat(row.item()).as(what).isEqualTo(expected.item());
+                assertThat(row.category()).as(what).isEqualTo(expected.category());
+                assertThat(new long[] {row.helpful, row.total, row.stars, row.verified, row.incentivised, row.epochDay}).as(what)
+                        .containsExactly(expected.helpful, expected.total, expected.stars, expected.verified,
+                                expected.incentivised, expected.epochDay);
+            }
+            // Cut before the LF, the line is not complete.
+            assertThat(onePass.scanTsv(b, off, off + text.length)).isEqualTo(-1);
+        }
+    }
 }
