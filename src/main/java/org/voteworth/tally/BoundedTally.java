@@ -237,7 +237,7 @@ public final class BoundedTally implements AutoCloseable {
             if (bytes <= room) {
                 TallyTable t = mergedPiece(p, 1, 0);
                 java.io.ByteArrayOutputStream out = new java.io.ByteArrayOutputStream((int) Math.min(1 << 30, 16 + sizes[p] * 120));
-                long rows = writeSorted(t, new ReviewerTableFile.Rows(out, t.categoryDictionary(), each, false));
+                long rows = ReviewerTableFile.writeSorted(t, new ReviewerTableFile.Rows(out, t.categoryDictionary(), each, false));
                 deletePartitionFiles(p);
                 return new Piece(out, null, rows, counts);
             }
@@ -284,17 +284,6 @@ public final class BoundedTally implements AutoCloseable {
             for (Path f : partitionFiles(p)) {
                 Files.delete(f);
             }
-        }
-    }
-
-    private static long writeSorted(TallyTable t, ReviewerTableFile.Rows rows) throws IOException {
-        try (rows) {
-            TallyRecord r = new TallyRecord();
-            for (int s : t.sortedById()) {
-                t.load(s, r, null);
-                rows.write(r);
-            }
-            return rows.count();
         }
     }
 

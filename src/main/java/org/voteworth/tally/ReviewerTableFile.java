@@ -43,12 +43,18 @@ public final class ReviewerTableFile {
 
     /** As {@link #write(TallyTable, Path)}, telling {@code each} every tally written, in id order. */
     static void write(TallyTable table, Path file, WrittenTally each) throws IOException {
-        try (Rows rows = new Rows(Files.newOutputStream(file), table.categoryDictionary(), each)) {
+        writeSorted(table, new Rows(Files.newOutputStream(file), table.categoryDictionary(), each));
+    }
+
+    /** Writes every tally of {@code table} in id order to {@code rows}, and closes them; returns the rows written. */
+    static long writeSorted(TallyTable table, Rows rows) throws IOException {
+        try (rows) {
             TallyRecord r = new TallyRecord();
             for (int s : table.sortedById()) {
                 table.load(s, r, null);
                 rows.write(r);
             }
+            return rows.count();
         }
     }
 
