@@ -4,7 +4,6 @@ import java.io.EOFException;
 import java.io.FilterInputStream;
 import java.io.IOException;
 import java.io.InputStream;
-import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.util.List;
 import java.util.Objects;
@@ -255,7 +254,7 @@ public final class DumpScanner {
 
     private static InputStream open(DumpFile file) throws IOException {
         try {
-            return Files.newInputStream(file.path());
+            return RangeStream.open(file.path());
         } catch (NoSuchFileException e) {
             throw new IOException(file + ": no such file", e);
         } catch (IOException e) {

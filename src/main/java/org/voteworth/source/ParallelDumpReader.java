@@ -171,8 +171,8 @@ public final class ParallelDumpReader {
                 if (u.whole) {
                     d.report = scanner.scan(u.file, sink, buffered);
                 } else {
-                    try (FileChannel ch = FileChannel.open(u.file.path(), StandardOpenOption.READ)) {
-                        d.report = scanner.scan(u.file, new RangeStream(ch, u.start, u.end), 1, u.first, sink, buffered);
+                    try (RangeStream in = RangeStream.open(u.file.path(), u.start, u.end)) {
+                        d.report = scanner.scan(u.file, in, 1, u.first, sink, buffered);
                     }
                 }
             } catch (Throwable t) {
