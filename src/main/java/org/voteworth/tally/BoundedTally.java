@@ -52,8 +52,14 @@ public final class BoundedTally implements AutoCloseable {
     private RangePartitioner partitioner;
     /** Tallies spilled to each partition so far. */
     private long[] spilledPerPartition = new long[0];
-    /** Per partition: the spill files holding its tallies. */
-    private final List<List<Path>> spillFiles = new ArrayList<>();
+    /** Per partition: the sections of spill files holding its tallies. */
+    private final List<List<Section>> spillFiles = new ArrayList<>();
+    /** Per spill file: how many of its sections are not merged yet (it is deleted at none). */
+    private final java.util.Map<Path, Integer> sectionsLeft = new java.util.HashMap<>();
+
+    /** The bytes {@code [start, end)} of a spill file: one partition's tallies from one spill. */
+    private record Section(Path file, long start, long end) {
+    }
     private long reviewers = -1;
     private boolean liveMerged;
 
@@ -238,7 +244,7 @@ public final class BoundedTally implements AutoCloseable {
                 TallyTable t = mergedPiece(p, 1, 0);
                 java.io.ByteArrayOutputStream out = new java.io.ByteArrayOutputStream((int) Math.min(1 << 30, 16 + sizes[p] * 120));
                 long rows = ReviewerTableFile.writeSorted(t, new ReviewerTableFile.Rows(out, t.categoryDictionary(), each, false));
-                deletePartitionFiles(p);
+                releasePartition(p);
                 return new Piece(out, null, rows, counts);
             }
             // Too large for memory at once: split it by id hash into pieces that fit, sort each to a run, merge the runs.
@@ -253,7 +259,7 @@ public final class BoundedTally implements AutoCloseable {
                     t.writeRun(t.sortedById(), out);
                 }
             }
-            deletePartitionFiles(p);
+            releasePartition(p);
             Path file = spillFolder().resolve("piece-p" + p + ".csv");
             long rows;
             Categories dictionary = new Categories();
@@ -269,8 +275,8 @@ public final class BoundedTally implements AutoCloseable {
         /** The tallies of piece {@code q} of {@code pieces} (by id hash) of partition {@code p}, merged into one table. */
         private TallyTable mergedPiece(int p, int pieces, int q) throws IOException {
             TallyTable t = new TallyTable(unit);
-            for (Path f : partitionFiles(p)) {
-                try (SpillFile.In in = SpillFile.open(f)) {
+            for (Section f : partitionFiles(p)) {
+                try (SpillFile.In in = SpillFile.open(f.file(), f.start(), f.end())) {
                     t.readSpill(in, pieces, q);
                 }
             }
@@ -280,10 +286,8 @@ public final class BoundedTally implements AutoCloseable {
             return t;
         }
 
-        private void deletePartitionFiles(int p) throws IOException {
-            for (Path f : partitionFiles(p)) {
-                Files.delete(f);
-            }
+        private void releasePartition(int p) throws IOException {
+            merged(partitionFiles(p));
         }
     }
 
@@ -300,24 +304,42 @@ public final class BoundedTally implements AutoCloseable {
         return all;
     }
 
-    /** The spill files of partition {@code p} that hold tallies, in name order. */
-    private synchronized List<Path> partitionFiles(int p) {
-        return p < spillFiles.size() ? spillFiles.get(p).stream().sorted().toList() : List.of();
+    /** The spill file sections of partition {@code p} that hold tallies, in file name order. */
+    private synchronized List<Section> partitionFiles(int p) {
+        return p < spillFiles.size()
+                ? spillFiles.get(p).stream().sorted(java.util.Comparator.comparing(Section::file)).toList()
+                : List.of();
     }
 
-    /** Keeps the spill files that hold tallies for the merge, and deletes the empty ones. */
-    private synchronized void spilled(Path[] files, long[] perPartition) throws IOException {
-        while (spillFiles.size() < files.length) {
+    /** Keeps the sections of a spill file that hold tallies for the merge; deletes the file when none does. */
+    private synchronized void spilled(Path file, long[] start, long[] end, long[] perPartition) throws IOException {
+        while (spillFiles.size() < perPartition.length) {
             spillFiles.add(new ArrayList<>());
         }
-        for (int p = 0; p < files.length; p++) {
+        int sections = 0;
+        for (int p = 0; p < perPartition.length; p++) {
             if (perPartition[p] > 0) {
-                spillFiles.get(p).add(files[p]);
-            } else {
-                Files.delete(files[p]);
+                spillFiles.get(p).add(new Section(file, start[p], end[p]));
+                sections++;
             }
         }
+        if (sections == 0) {
+            Files.delete(file);
+        } else {
+            sectionsLeft.put(file, sections);
+        }
         spilled(perPartition);
+    }
+
+    /** Marks {@code sections} as merged, deleting each spill file once all its sections are. */
+    private synchronized void merged(List<Section> sections) throws IOException {
+        for (Section s : sections) {
+            int left = sectionsLeft.merge(s.file(), -1, Integer::sum);
+            if (left == 0) {
+                sectionsLeft.remove(s.file());
+                Files.delete(s.file());
+            }
+        }
     }
 
     /** One sorted run being merged: its stream, its category ids in the merge's dictionary, its current tally. */
@@ -460,23 +482,15 @@ public final class BoundedTally implements AutoCloseable {
             Path dir = spillFolder();
             int n = nextSpill();
             RangePartitioner ranges = partitionerOf(table);
-            SpillFile.Out[] parts = new SpillFile.Out[ranges.parts()];
-            Path[] files = new Path[parts.length];
+            // One file per spill, a section per partition: fewer files to create than one per partition.
+            Path file = dir.resolve(String.format(java.util.Locale.ROOT, "spill-w%03d-%06d.bin", number, n));
+            long[] start = new long[ranges.parts()];
+            long[] end = new long[ranges.parts()];
             long[] written;
-            try {
-                for (int p = 0; p < parts.length; p++) {
-                    files[p] = dir.resolve(String.format(java.util.Locale.ROOT, "spill-w%03d-%06d-p%d.bin", number, n, p));
-                    parts[p] = SpillFile.create(files[p]);
-                }
-                written = table.spill(parts, ranges);
-            } finally {
-                for (SpillFile.Out o : parts) {
-                    if (o != null) {
-                        o.close();
-                    }
-                }
+            try (SpillFile.Out out = SpillFile.create(file)) {
+                written = table.spill(out, ranges, start, end);
             }
-            spilled(files, written);
+            spilled(file, start, end, written);
             table = new TallyTable(unit);
             bytes = 0;
         }

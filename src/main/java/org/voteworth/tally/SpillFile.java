@@ -1,6 +1,8 @@
 package org.voteworth.tally;
 
 import java.io.EOFException;
+import java.io.FileInputStream;
+import java.io.FilterInputStream;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.OutputStream;
@@ -27,14 +29,68 @@ final class SpillFile {
         return new In(Files.newInputStream(file));
     }
 
+    /** Reads the bytes {@code [start, end)} of {@code file}: one section of a spill file that holds several. */
+    static In open(Path file, long start, long end) throws IOException {
+        FileInputStream in = new FileInputStream(file.toFile());
+        try {
+            in.getChannel().position(start);
+        } catch (IOException | RuntimeException e) {
+            in.close();
+            throw e;
+        }
+        return new In(new Section(in, end - start));
+    }
+
+    /** At most {@code left} bytes of the stream below. */
+    private static final class Section extends FilterInputStream {
+        private long left;
+
+        Section(InputStream in, long length) {
+            super(in);
+            this.left = length;
+        }
+
+        @Override
+        public int read() throws IOException {
+            if (left <= 0) {
+                return -1;
+            }
+            int b = in.read();
+            if (b >= 0) {
+                left--;
+            }
+            return b;
+        }
+
+        @Override
+        public int read(byte[] b, int off, int len) throws IOException {
+            if (left <= 0) {
+                return -1;
+            }
+            int n = in.read(b, off, (int) Math.min(len, left));
+            if (n > 0) {
+                left -= n;
+            }
+            return n;
+        }
+    }
+
     /** Writes to a file through a buffer. */
     static final class Out implements AutoCloseable {
         private final OutputStream out;
         private final byte[] buf = new byte[BUFFER];
         private int len;
 
+        /** Bytes handed to the stream below so far. */
+        private long flushed;
+
         private Out(OutputStream out) {
             this.out = out;
+        }
+
+        /** Bytes written so far (the offset of the next byte in the file). */
+        long position() {
+            return flushed + len;
         }
 
         void write(int b) throws IOException {
@@ -67,6 +123,7 @@ final class SpillFile {
                 flush();
                 if (n > buf.length) {
                     out.write(b, off, n);
+                    flushed += n;
                     return;
                 }
             }
@@ -81,6 +138,7 @@ final class SpillFile {
 
         private void flush() throws IOException {
             out.write(buf, 0, len);
+            flushed += len;
             len = 0;
         }
 

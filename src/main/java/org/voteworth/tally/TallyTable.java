@@ -465,31 +465,32 @@ public final class TallyTable implements ReviewSink {
     }
 
     /**
-     * Writes every tally to the stream of its range partition under {@code partitioner} (one
-     * stream per partition), so that the partitions of many tables can be merged one at a time.
-     * Each stream gets this table's category names first and an end mark last.
+     * Writes every tally to {@code out} in sections, one per range partition under {@code
+     * partitioner} in partition order, so that the partitions of many tables can be merged one at
+     * a time. A section holds this table's category names, the partition's tallies and an end
+     * mark; an empty partition gets no section. Section {@code p} spans the bytes {@code
+     * [sectionStart[p], sectionEnd[p])} of the file (equal bounds when it is empty).
      *
      * @return the tallies written to each partition
      */
-    long[] spill(SpillFile.Out[] parts, RangePartitioner partitioner) throws IOException {
+    long[] spill(SpillFile.Out out, RangePartitioner partitioner, long[] sectionStart, long[] sectionEnd) throws IOException {
         flush();
-        if (parts.length != partitioner.parts()) {
-            throw new IllegalArgumentException(parts.length + " streams for " + partitioner.parts() + " partitions");
-        }
-        for (SpillFile.Out out : parts) {
-            writeCategoryNames(out);
-        }
-        long[] written = new long[parts.length];
+        int[][] slotsOf = slotsByPartition(partitioner);
+        long[] written = new long[slotsOf.length];
         TallyRecord r = new TallyRecord();
-        byte[] digits = new byte[20];
-        for (int s = 0; s < size(); s++) {
-            int p = partitioner.of(partitionKey(s, digits));
-            load(s, r, null);
-            r.write(parts[p]);
-            written[p]++;
-        }
-        for (SpillFile.Out out : parts) {
+        for (int p = 0; p < slotsOf.length; p++) {
+            sectionStart[p] = sectionEnd[p] = out.position();
+            if (slotsOf[p].length == 0) {
+                continue;
+            }
+            writeCategoryNames(out);
+            for (int s : slotsOf[p]) {
+                load(s, r, null);
+                r.write(out);
+            }
             out.write(TallyRecord.END);
+            written[p] = slotsOf[p].length;
+            sectionEnd[p] = out.position();
         }
         return written;
     }

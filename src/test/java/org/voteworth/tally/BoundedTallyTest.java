@@ -125,8 +125,17 @@ class BoundedTallyTest {
         Path got = dir.resolve("got.csv");
         Path expected = dir.resolve("expected.csv");
         try (tally) {
-            tally.write(got);
             assertThat(tally.spilled()).isTrue();
+            // One file per spill, each holding a section per partition.
+            try (java.util.stream.Stream<Path> files = Files.list(tally.spillDir().orElseThrow())) {
+                assertThat(files.filter(f -> f.getFileName().toString().startsWith("spill-")).count())
+                        .isEqualTo(tally.spills());
+            }
+            tally.write(got);
+            // Every spill file is deleted once all its sections are merged.
+            try (java.util.stream.Stream<Path> files = Files.list(tally.spillDir().orElseThrow())) {
+                assertThat(files.filter(f -> f.getFileName().toString().startsWith("spill-"))).isEmpty();
+            }
         }
         ReviewerTableFile.write(reference, expected);
         assertThat(Files.mismatch(expected, got)).isEqualTo(-1L);
