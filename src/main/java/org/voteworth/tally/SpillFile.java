@@ -1,5 +1,6 @@
 package org.voteworth.tally;
 
+import java.io.ByteArrayOutputStream;
 import java.io.EOFException;
 import java.io.FileInputStream;
 import java.io.FilterInputStream;
@@ -27,6 +28,11 @@ final class SpillFile {
 
     static In open(Path file) throws IOException {
         return new In(Files.newInputStream(file));
+    }
+
+    /** Writes to memory; {@link Out#append} copies the bytes into a file. */
+    static Out inMemory() {
+        return new Out(new ByteArrayOutputStream());
     }
 
     /** Reads the bytes {@code [start, end)} of {@code file}: one section of a spill file that holds several. */
@@ -86,6 +92,16 @@ final class SpillFile {
 
         private Out(OutputStream out) {
             this.out = out;
+        }
+
+        /** Appends everything written to {@code memory} (made by {@link #inMemory()}), which is then empty. */
+        void append(Out memory) throws IOException {
+            memory.flush();
+            ByteArrayOutputStream bytes = (ByteArrayOutputStream) memory.out;
+            flush();
+            bytes.writeTo(out);
+            flushed += bytes.size();
+            bytes.reset();
         }
 
         /** Bytes written so far (the offset of the next byte in the file). */

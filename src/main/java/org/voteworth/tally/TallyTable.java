@@ -475,21 +475,31 @@ public final class TallyTable implements ReviewSink {
      */
     long[] spill(SpillFile.Out out, RangePartitioner partitioner, long[] sectionStart, long[] sectionEnd) throws IOException {
         flush();
-        int[][] slotsOf = slotsByPartition(partitioner);
-        long[] written = new long[slotsOf.length];
+        int parts = partitioner.parts();
+        SpillFile.Out[] sections = new SpillFile.Out[parts];
+        long[] written = new long[parts];
         TallyRecord r = new TallyRecord();
-        for (int p = 0; p < slotsOf.length; p++) {
-            sectionStart[p] = sectionEnd[p] = out.position();
-            if (slotsOf[p].length == 0) {
-                continue;
+        byte[] digits = new byte[20];
+        // One pass in slot order, the order the counters lie in memory, each tally encoded into its
+        // partition's section in memory (a few dozen bytes a tally, within the growth room the budget
+        // keeps), then the sections copied to the file in partition order.
+        for (int s = 0; s < size(); s++) {
+            int p = partitioner.of(partitionKey(s, digits));
+            if (sections[p] == null) {
+                sections[p] = SpillFile.inMemory();
+                writeCategoryNames(sections[p]);
             }
-            writeCategoryNames(out);
-            for (int s : slotsOf[p]) {
-                load(s, r, null);
-                r.write(out);
+            load(s, r, null);
+            r.write(sections[p]);
+            written[p]++;
+        }
+        for (int p = 0; p < parts; p++) {
+            sectionStart[p] = out.position();
+            if (sections[p] != null) {
+                sections[p].write(TallyRecord.END);
+                out.append(sections[p]);
+                sections[p] = null;
             }
-            out.write(TallyRecord.END);
-            written[p] = slotsOf[p].length;
             sectionEnd[p] = out.position();
         }
         return written;
