@@ -16,10 +16,11 @@ import org.voteworth.source.ReviewSink;
 
 /**
  * Per-reviewer tallies in bounded memory: one {@link TallyTable} per scanning worker, and when the
- * tables together would pass the memory budget, a worker writes its table to hash-partitioned
- * temporary files and starts afresh. At the end the partitions are merged one at a time (with the
- * same meaning as {@link TallyTable#mergeFrom}), each sorted by id, and the sorted partitions are
- * merged into the reviewer table, so the output is the same as without spilling.
+ * tables together would pass the memory budget, a worker writes its table to a temporary spill
+ * file, one section per range of the id order, and starts afresh. At the end each range partition
+ * is merged (with the same meaning as {@link TallyTable#mergeFrom}) and sorted by id on one of the
+ * threads, and the partitions are written one after another, so the output is the same as
+ * without spilling.
  *
  * <p>Temporary files live in one folder under the given temp folder; {@link #close()} deletes it,
  * on success and on failure. Not thread-safe except that each worker sink runs on its own thread.
