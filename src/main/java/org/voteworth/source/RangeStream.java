@@ -17,7 +17,7 @@ import java.nio.file.Path;
  *
  * <p>Reads go through {@link FileInputStream} at most {@link #READ} bytes at a time: on the machines
  * measured, a positional channel read into a heap buffer of a megabyte or more (the path of
- * {@code Files.newInputStream} and {@code FileChannel.read}) spent four times the kernel time of
+ * {@code Files.newInputStream} and {@code FileChannel.read}) spent about six times the kernel time of
  * these reads (see docs/benchmarks.md, "Plain reads").
  */
 final class RangeStream extends InputStream {
