@@ -20,7 +20,7 @@ import java.nio.file.Path;
  * {@code Files.newInputStream} and {@code FileChannel.read}) spent about six times the kernel time of
  * these reads (see docs/benchmarks.md, "Plain reads").
  */
-final class RangeStream extends InputStream {
+public final class RangeStream extends InputStream {
     /** Most bytes asked of the kernel per read. */
     static final int READ = 1 << 19;
     private final FileInputStream in;
@@ -33,8 +33,8 @@ final class RangeStream extends InputStream {
         this.end = end;
     }
 
-    /** The bytes {@code [start, end)} of {@code file}. */
-    static RangeStream open(Path file, long start, long end) throws IOException {
+    /** The bytes {@code [start, end)} of {@code file} (a dump file's byte range, or one section of a spill file). */
+    public static RangeStream open(Path file, long start, long end) throws IOException {
         FileInputStream in = openFile(file);
         try {
             if (start > 0) {

@@ -2,14 +2,13 @@ package org.voteworth.tally;
 
 import java.io.ByteArrayOutputStream;
 import java.io.EOFException;
-import java.io.FileInputStream;
-import java.io.FilterInputStream;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import org.voteworth.source.RangeStream;
 
 /**
  * The byte format of spilled tallies: numbers as unsigned LEB128 varints (signed ones zig-zag
@@ -37,48 +36,7 @@ final class SpillFile {
 
     /** Reads the bytes {@code [start, end)} of {@code file}: one section of a spill file that holds several. */
     static In open(Path file, long start, long end) throws IOException {
-        FileInputStream in = new FileInputStream(file.toFile());
-        try {
-            in.getChannel().position(start);
-        } catch (IOException | RuntimeException e) {
-            in.close();
-            throw e;
-        }
-        return new In(new Section(in, end - start));
-    }
-
-    /** At most {@code left} bytes of the stream below. */
-    private static final class Section extends FilterInputStream {
-        private long left;
-
-        Section(InputStream in, long length) {
-            super(in);
-            this.left = length;
-        }
-
-        @Override
-        public int read() throws IOException {
-            if (left <= 0) {
-                return -1;
-            }
-            int b = in.read();
-            if (b >= 0) {
-                left--;
-            }
-            return b;
-        }
-
-        @Override
-        public int read(byte[] b, int off, int len) throws IOException {
-            if (left <= 0) {
-                return -1;
-            }
-            int n = in.read(b, off, (int) Math.min(len, left));
-            if (n > 0) {
-                left -= n;
-            }
-            return n;
-        }
+        return new In(RangeStream.open(file, start, end));
     }
 
     /** Writes to a file through a buffer. */
