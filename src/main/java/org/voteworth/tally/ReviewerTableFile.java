@@ -197,6 +197,20 @@ public final class ReviewerTableFile {
         /** The categories as name:count pairs in name order, joined by ';', as one text cell. */
         private void categories(TallyRecord r) {
             int n = r.categories;
+            if (n == 1) {
+                // Most reviewers review in one category: nothing to sort or join.
+                int c = r.categoryIds[0];
+                known(c + 1);
+                if (plain[c]) {
+                    byte[] name = cell[c];
+                    room(name.length + 24);
+                    System.arraycopy(name, 0, buf, len, name.length);
+                    len += name.length;
+                    put((byte) ':');
+                    number(r.categoryCounts[0]);
+                    return;
+                }
+            }
             if (order.length < n) {
                 order = new int[2 * n];
             }
@@ -262,13 +276,21 @@ public final class ReviewerTableFile {
         /** {@code %.6f}; shares in [0, 1] take a fast path that gives the same digits (ties fall back to the formatter). */
         void decimal(double v) {
             if (v >= 0 && v <= 1) {
+                room(8);
+                // Most shares of most reviewers are exactly 0 or 1 (one review, or none voted on).
+                if (v == 0 || v == 1) {
+                    System.arraycopy(v == 0 ? ZERO : ONE, 0, buf, len, 8);
+                    len += 8;
+                    return;
+                }
                 double x = v * 1e6;
-                double frac = x - Math.floor(x);
+                int whole = (int) x;
+                double frac = x - whole;
                 if (Math.abs(frac - 0.5) > 1e-6) {
-                    long m = Math.round(x);
-                    room(8);
+                    int m = frac > 0.5 ? whole + 1 : whole;
                     if (m >= 1_000_000) {
-                        ascii("1.000000");
+                        System.arraycopy(ONE, 0, buf, len, 8);
+                        len += 8;
                         return;
                     }
                     buf[len++] = '0';
@@ -283,6 +305,9 @@ public final class ReviewerTableFile {
             }
             ascii(String.format(Locale.ROOT, "%.6f", v));
         }
+
+        private static final byte[] ZERO = "0.000000".getBytes(StandardCharsets.US_ASCII);
+        private static final byte[] ONE = "1.000000".getBytes(StandardCharsets.US_ASCII);
 
         private void date(int epochDay) {
             if (epochDay == ReviewerTally.NO_DATE) {

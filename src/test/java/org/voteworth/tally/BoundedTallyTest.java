@@ -220,7 +220,9 @@ class BoundedTallyTest {
         try (ReviewerTableFile.Rows rows = new ReviewerTableFile.Rows(bytes, new Categories(), WrittenTally.NONE)) {
             for (int i = 0; i < values.length; i++) {
                 long t = 1 + rnd.nextInt(5000);
-                values[i] = i % 2 == 0 ? (double) rnd.nextInt((int) t + 1) / t : rnd.nextDouble();
+                // Shares k/t, multiples of 1/128 (0, 1, and halfway cases such as 1/128 = 0.0078125), and any double.
+                values[i] = i % 3 == 0 ? (double) rnd.nextInt((int) t + 1) / t
+                        : i % 3 == 1 ? (double) rnd.nextInt(129) / 128 : rnd.nextDouble();
                 rows.decimal(values[i]);
                 // Reference: java.util.Formatter's %.6f (HALF_UP on the exact binary value).
                 expected.append(String.format(java.util.Locale.ROOT, "%.6f", values[i]));
