@@ -151,7 +151,7 @@ class BoundedTallyTest {
         Path expected = dir.resolve("expected.csv");
         ReviewerTableFile.write(reference, expected);
         for (int threads : new int[] {1, 2}) {
-            for (long budget : new long[] {20_000, Long.MAX_VALUE}) {
+            for (long budget : new long[] {4_000, Long.MAX_VALUE}) {
                 Path got = dir.resolve("got-" + threads + ".csv");
                 try (BoundedTally tally = new BoundedTally(TallyUnit.REVIEWER, budget, dir, 1, 0)) {
                     new ParallelDumpReader(SourceOptions.defaults(), threads).read(files, w -> tally.newSink(), new RejectCounter(),
