@@ -317,14 +317,15 @@ public final class BoundedTally implements AutoCloseable {
     }
 
     /** Keeps the sections of a spill file that hold tallies for the merge; deletes the file when none does. */
-    private synchronized void spilled(Path file, long[] start, long[] end, long[] perPartition) throws IOException {
+    private synchronized void spilled(Path file, TallyTable.Sections written) throws IOException {
+        long[] perPartition = written.tallies();
         while (spillFiles.size() < perPartition.length) {
             spillFiles.add(new ArrayList<>());
         }
         int sections = 0;
         for (int p = 0; p < perPartition.length; p++) {
             if (perPartition[p] > 0) {
-                spillFiles.get(p).add(new Section(file, start[p], end[p]));
+                spillFiles.get(p).add(new Section(file, written.start()[p], written.end()[p]));
                 sections++;
             }
         }
@@ -489,13 +490,11 @@ public final class BoundedTally implements AutoCloseable {
             RangePartitioner ranges = partitionerOf(table);
             // One file per spill, a section per partition: fewer files to create than one per partition.
             Path file = dir.resolve(String.format(java.util.Locale.ROOT, "spill-w%03d-%06d.bin", number, n));
-            long[] start = new long[ranges.parts()];
-            long[] end = new long[ranges.parts()];
-            long[] written;
+            TallyTable.Sections sections;
             try (SpillFile.Out out = SpillFile.create(file)) {
-                written = table.spill(out, ranges, start, end);
+                sections = table.spill(out, ranges);
             }
-            spilled(file, start, end, written);
+            spilled(file, sections);
             table = new TallyTable(unit);
             bytes = 0;
         }

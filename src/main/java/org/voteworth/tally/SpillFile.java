@@ -1,6 +1,5 @@
 package org.voteworth.tally;
 
-import java.io.ByteArrayOutputStream;
 import java.io.EOFException;
 import java.io.IOException;
 import java.io.InputStream;
@@ -8,6 +7,7 @@ import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Arrays;
 import org.voteworth.source.RangeStream;
 
 /**
@@ -29,9 +29,9 @@ final class SpillFile {
         return new In(Files.newInputStream(file));
     }
 
-    /** Writes to memory; {@link Out#append} copies the bytes into a file. */
+    /** Writes to memory, into an array that grows as needed; {@link Out#append} copies the bytes into a file. */
     static Out inMemory() {
-        return new Out(new ByteArrayOutputStream());
+        return new Out(null);
     }
 
     /** Reads the bytes {@code [start, end)} of {@code file}: one section of a spill file that holds several. */
@@ -39,10 +39,11 @@ final class SpillFile {
         return new In(RangeStream.open(file, start, end));
     }
 
-    /** Writes to a file through a buffer. */
+    /** Writes to a file through a buffer, or (made by {@link #inMemory()}) to memory. */
     static final class Out implements AutoCloseable {
+        /** Null in memory: the buffer then grows and holds every byte written. */
         private final OutputStream out;
-        private final byte[] buf = new byte[BUFFER];
+        private byte[] buf;
         private int len;
 
         /** Bytes handed to the stream below so far. */
@@ -50,16 +51,31 @@ final class SpillFile {
 
         private Out(OutputStream out) {
             this.out = out;
+            // In memory a section starts small: a spill keeps one per range partition at once.
+            buf = new byte[out == null ? 256 : BUFFER];
         }
 
         /** Appends everything written to {@code memory} (made by {@link #inMemory()}), which is then empty. */
         void append(Out memory) throws IOException {
-            memory.flush();
-            ByteArrayOutputStream bytes = (ByteArrayOutputStream) memory.out;
+            if (out == null || memory.out != null) {
+                throw new IllegalArgumentException("append copies an in-memory Out into one that writes to a file");
+            }
             flush();
-            bytes.writeTo(out);
-            flushed += bytes.size();
-            bytes.reset();
+            out.write(memory.buf, 0, memory.len);
+            flushed += memory.len;
+            memory.len = 0;
+        }
+
+        /** Room for {@code n} more bytes in the buffer: flushed to the file, or grown in memory. */
+        private void room(int n) throws IOException {
+            if (len + n <= buf.length) {
+                return;
+            }
+            if (out == null) {
+                buf = Arrays.copyOf(buf, Math.max(2 * buf.length, len + n));
+            } else {
+                flush();
+            }
         }
 
         /** Bytes written so far (the offset of the next byte in the file). */
@@ -68,17 +84,13 @@ final class SpillFile {
         }
 
         void write(int b) throws IOException {
-            if (len == buf.length) {
-                flush();
-            }
+            room(1);
             buf[len++] = (byte) b;
         }
 
         /** A non-negative number. */
         void number(long v) throws IOException {
-            if (len + 10 > buf.length) {
-                flush();
-            }
+            room(10);
             while ((v & ~0x7FL) != 0) {
                 buf[len++] = (byte) ((v & 0x7F) | 0x80);
                 v >>>= 7;
@@ -93,14 +105,13 @@ final class SpillFile {
 
         void bytes(byte[] b, int off, int n) throws IOException {
             number(n);
-            if (len + n > buf.length) {
+            if (out != null && n > buf.length) {
                 flush();
-                if (n > buf.length) {
-                    out.write(b, off, n);
-                    flushed += n;
-                    return;
-                }
+                out.write(b, off, n);
+                flushed += n;
+                return;
             }
+            room(n);
             System.arraycopy(b, off, buf, len, n);
             len += n;
         }
@@ -111,6 +122,9 @@ final class SpillFile {
         }
 
         private void flush() throws IOException {
+            if (out == null) {
+                return;
+            }
             out.write(buf, 0, len);
             flushed += len;
             len = 0;
@@ -118,6 +132,9 @@ final class SpillFile {
 
         @Override
         public void close() throws IOException {
+            if (out == null) {
+                return;
+            }
             try (out) {
                 flush();
             }

@@ -468,16 +468,17 @@ public final class TallyTable implements ReviewSink {
      * Writes every tally to {@code out} in sections, one per range partition under {@code
      * partitioner} in partition order, so that the partitions of many tables can be merged one at
      * a time. A section holds this table's category names, the partition's tallies and an end
-     * mark; an empty partition gets no section. Section {@code p} spans the bytes {@code
-     * [sectionStart[p], sectionEnd[p])} of the file (equal bounds when it is empty).
+     * mark; an empty partition gets no section.
      *
-     * @return the tallies written to each partition
+     * @return per partition, the tallies written and the bytes of the section
      */
-    long[] spill(SpillFile.Out out, RangePartitioner partitioner, long[] sectionStart, long[] sectionEnd) throws IOException {
+    Sections spill(SpillFile.Out out, RangePartitioner partitioner) throws IOException {
         flush();
         int parts = partitioner.parts();
         SpillFile.Out[] sections = new SpillFile.Out[parts];
         long[] written = new long[parts];
+        long[] sectionStart = new long[parts];
+        long[] sectionEnd = new long[parts];
         TallyRecord r = new TallyRecord();
         byte[] digits = new byte[20];
         // One pass in slot order, the order the counters lie in memory, each tally encoded into its
@@ -502,7 +503,14 @@ public final class TallyTable implements ReviewSink {
             }
             sectionEnd[p] = out.position();
         }
-        return written;
+        return new Sections(written, sectionStart, sectionEnd);
+    }
+
+    /**
+     * Where {@link #spill} put each range partition: {@code tallies[p]} tallies in the bytes
+     * {@code [start[p], end[p])} of the file (equal bounds when there are none).
+     */
+    record Sections(long[] tallies, long[] start, long[] end) {
     }
 
     /** Writes the tallies of {@code slots}, in that order, in the format of {@link #spill}. */
