@@ -152,8 +152,6 @@ public final class RowParser {
             throw new IllegalStateException("scanTsv is for tab-separated rows");
         }
         java.util.Arrays.fill(from, -1);
-        int[] fieldOf = fieldOfColumn;
-        int cols = columnCount;
         int col = 0;
         int fieldStart = start;
         int i = start;
@@ -164,11 +162,7 @@ public final class RowParser {
                 m &= m - 1;
                 byte c = b[j];
                 if (c == '\t') {
-                    if (col < cols && fieldOf[col] >= 0) {
-                        from[fieldOf[col]] = fieldStart;
-                        to[fieldOf[col]] = j;
-                    }
-                    col++;
+                    scannedField(col++, fieldStart, j);
                     fieldStart = j + 1;
                 } else if (c == '\n') {
                     return lineScanned(b, start, j, col, fieldStart);
@@ -178,11 +172,7 @@ public final class RowParser {
         for (; i < limit; i++) {
             byte c = b[i];
             if (c == '\t') {
-                if (col < cols && fieldOf[col] >= 0) {
-                    from[fieldOf[col]] = fieldStart;
-                    to[fieldOf[col]] = i;
-                }
-                col++;
+                scannedField(col++, fieldStart, i);
                 fieldStart = i + 1;
             } else if (c == '\n') {
                 return lineScanned(b, start, i, col, fieldStart);
@@ -193,13 +183,21 @@ public final class RowParser {
 
     private int lineScanned(byte[] b, int start, int lf, int col, int fieldStart) {
         int end = lf > start && b[lf - 1] == '\r' ? lf - 1 : lf;
-        if (col < columnCount && fieldOfColumn[col] >= 0) {
-            from[fieldOfColumn[col]] = fieldStart;
-            to[fieldOfColumn[col]] = Math.max(fieldStart, end);
-        }
+        scannedField(col, fieldStart, Math.max(fieldStart, end));
         scannedFields = col + 1;
         scannedEnd = end;
         return lf;
+    }
+
+    /** The bounds {@code [start, end)} of column {@code col} of the line being scanned, kept when a field is read from it. */
+    private void scannedField(int col, int start, int end) {
+        if (col < columnCount) {
+            int f = fieldOfColumn[col];
+            if (f >= 0) {
+                from[f] = start;
+                to[f] = end;
+            }
+        }
     }
 
     /**
