@@ -107,20 +107,7 @@ class BoundedTallyTest {
             long helpful = total == 0 ? 0 : rnd.nextInt((int) total + 1);
             String cat = i % 5 == 0 ? "games" : "toys";
             reference.add(id, helpful, total, 1 + i % 5, i % 2 == 0, i % 7 == 0, cat, 18000 + i % 400);
-            byte[] b = (id + "|" + cat).getBytes(java.nio.charset.StandardCharsets.UTF_8);
-            row.buf = b;
-            row.reviewerOff = 0;
-            row.reviewerLen = id.getBytes(java.nio.charset.StandardCharsets.UTF_8).length;
-            row.categoryBuf = b;
-            row.categoryOff = row.reviewerLen + 1;
-            row.categoryLen = b.length - row.categoryOff;
-            row.helpful = helpful;
-            row.total = total;
-            row.stars = 1 + i % 5;
-            row.verified = i % 2 == 0 ? 1 : 0;
-            row.incentivised = i % 7 == 0 ? 1 : 0;
-            row.epochDay = 18000 + i % 400;
-            sink.accept(row);
+            sink.accept(TestRows.fill(row, id, cat, helpful, total, 1 + i % 5, i % 2 == 0, i % 7 == 0, 18000 + i % 400));
         }
         Path got = dir.resolve("got.csv");
         Path expected = dir.resolve("expected.csv");
@@ -179,25 +166,12 @@ class BoundedTallyTest {
             org.voteworth.source.ReviewSink sink = tally.newSink();
             org.voteworth.source.ReviewRow row = new org.voteworth.source.ReviewRow();
             row.file = new DumpFile(dir.resolve("x.tsv"), "toys", DumpFile.Compression.NONE, 0);
-            byte[] cat = "toys".getBytes(java.nio.charset.StandardCharsets.UTF_8);
             for (int i = 0; i < 60_000; i++) {
                 String id = prefix + (100_000 + i / 2);
                 long total = i % 7;
                 long helpful = total / 2;
                 reference.add(id, helpful, total, 1 + i % 5, i % 2 == 0, i % 3 == 0, "toys", 18000 + i % 400);
-                row.buf = id.getBytes(java.nio.charset.StandardCharsets.UTF_8);
-                row.reviewerOff = 0;
-                row.reviewerLen = row.buf.length;
-                row.categoryBuf = cat;
-                row.categoryOff = 0;
-                row.categoryLen = cat.length;
-                row.helpful = helpful;
-                row.total = total;
-                row.stars = 1 + i % 5;
-                row.verified = i % 2 == 0 ? 1 : 0;
-                row.incentivised = i % 3 == 0 ? 1 : 0;
-                row.epochDay = 18000 + i % 400;
-                sink.accept(row);
+                sink.accept(TestRows.fill(row, id, "toys", helpful, total, 1 + i % 5, i % 2 == 0, i % 3 == 0, 18000 + i % 400));
             }
             Path got = dir.resolve("got.csv");
             Path expected = dir.resolve("expected.csv");

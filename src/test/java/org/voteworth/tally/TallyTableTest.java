@@ -120,20 +120,8 @@ class TallyTableTest {
         org.voteworth.source.ReviewRow row = new org.voteworth.source.ReviewRow();
         List<String> firstSeen = new ArrayList<>();
         for (Review r : all) {
-            byte[] b = (r.id() + "|" + r.category()).getBytes(java.nio.charset.StandardCharsets.UTF_8);
-            row.buf = b;
-            row.reviewerOff = 0;
-            row.reviewerLen = r.id().length();
-            row.categoryBuf = b;
-            row.categoryOff = r.id().length() + 1;
-            row.categoryLen = b.length - row.categoryOff;
-            row.helpful = r.helpful();
-            row.total = r.total();
-            row.stars = r.stars();
-            row.verified = r.verified() ? 1 : 0;
-            row.incentivised = r.incentivised() ? 1 : 0;
-            row.epochDay = r.day();
-            accepted.accept(row);
+            accepted.accept(TestRows.fill(row, r.id(), r.category(), r.helpful(), r.total(), r.stars(), r.verified(),
+                    r.incentivised(), r.day()));
             if (!firstSeen.contains(r.id())) {
                 firstSeen.add(r.id());
             }
