@@ -179,7 +179,7 @@ public final class BoundedTally implements AutoCloseable {
         long room = Math.max(minRoom, (budget - (keepLive ? inMemory : 0)) / threads);
         Partitions parts = new Partitions(live, livePartitions, sizes, room, overview != null);
         try (OutputStream out = Files.newOutputStream(file)) {
-            out.write((String.join(",", ReviewerTableFile.HEADER) + "\n").getBytes(java.nio.charset.StandardCharsets.UTF_8));
+            out.write(ReviewerTableFile.HEADER_LINE.getBytes(java.nio.charset.StandardCharsets.US_ASCII));
             long[] written = new long[1];
             Parallel.inOrder(partitioner.parts(), threads, parts::merge, piece -> {
                 piece.writeTo(out);

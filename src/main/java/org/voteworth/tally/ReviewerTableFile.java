@@ -23,6 +23,8 @@ public final class ReviewerTableFile {
             "helpful_share", "voted_reviews", "majority_reviews", "max_review_votes", "max_review_share",
             "sum_squared_votes", "herfindahl", "verified", "incentivised", "stars_1", "stars_2", "stars_3",
             "stars_4", "stars_5", "first_date", "last_date", "categories");
+    /** {@link #HEADER} as the table's first line, with its LF. */
+    static final String HEADER_LINE = String.join(",", HEADER) + "\n";
 
     private ReviewerTableFile() {
     }
@@ -103,7 +105,7 @@ public final class ReviewerTableFile {
             this.each = each;
             names = categoryNames;
             if (header) {
-                ascii(String.join(",", HEADER) + "\n");
+                ascii(HEADER_LINE);
             }
         }
 
